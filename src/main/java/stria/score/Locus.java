@@ -1,0 +1,25 @@
+package stria.score;
+
+/**
+ * One reported tandem-repeat locus in contig coordinates (0-based, end exclusive).
+ *
+ * @param start       first base
+ * @param end         one past the last base
+ * @param period      motif length
+ * @param motif       consensus motif as read on the + strand (majority letter at each phase)
+ * @param motifClass  canonical motif: smallest rotation of the motif or of its reverse complement
+ * @param copies      (end - start) / period
+ * @param purity      fraction of aligned positions that agree with the consensus (1 for exact runs)
+ * @param mismatches  substituted bases in the alignment against the repeated consensus
+ * @param insertions  bases present in the sequence but not in the repeated consensus
+ * @param deletions   consensus bases missing from the sequence
+ * @param score       alignment score that rewards length and purity
+ * @param entropy     Shannon entropy (bits, 0..2) of the base composition of the locus
+ */
+public record Locus(int start, int end, int period, String motif, String motifClass, double copies,
+                    double purity, int mismatches, int insertions, int deletions, int score, double entropy) {
+
+    public int length() {
+        return end - start;
+    }
+}
