@@ -199,6 +199,18 @@ class GenomeReaderTest {
     }
 
     @Test
+    void aFaiThatLeavesOutEmptyRecordsStillMatches() {
+        Path p = write(dir.resolve("e.fa"), bytes(">e0\n>a\nACGT\nAC\n>e desc\n>b\nGG\n>e2\n"));
+        // as samtools faidx writes it: the records without sequence are not listed
+        write(dir.resolve("e.fa.fai"), bytes("a\t6\t7\t4\t5\nb\t2\t26\t2\t3\n"));
+        List<String> warnings = new ArrayList<>();
+        assertThat(read(p, warnings)).containsExactly(Map.entry("a", "ACGTAC"), Map.entry("b", "GG"));
+        assertThat(warnings).containsExactly(p + ": skipped 3 records with no sequence (first: e0)");
+        write(dir.resolve("e.fa.fai"), bytes("a\t6\t7\t4\t5\nb\t2\t26\t2\t3\nc\t2\t30\t2\t3\n"));
+        refused(p, "e.fa.fai does not match", "record c");
+    }
+
+    @Test
     void aMatchingFaiIsUsedInsteadOfAPrePass() throws Exception {
         Path p = write(dir.resolve("g.fa"), bytes(format(SAMPLE)));
         FastaFiles.faidx(p);
