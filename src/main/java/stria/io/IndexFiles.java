@@ -81,7 +81,7 @@ final class IndexFiles {
         for (FastaSequenceIndexEntry e : fai) {
             String problem = null;
             while (problem == null) {
-                if (!skipLineEnds(in, next) || in.peek() != '>') {
+                if (!atHeader(skipLineEnds(in, next), in)) {
                     problem = "no header line where one should start";
                     break;
                 }
@@ -91,7 +91,8 @@ final class IndexFiles {
                     break;
                 }
                 // samtools leaves records without sequence out of a .fai
-                if (!skipLineEnds(in, in.position()) || (in.peek() != '>' && in.peek() >= 0)) {
+                Landing after = skipLineEnds(in, in.position());
+                if (!atHeader(after, in) && !(after != Landing.PAST_END && in.peek() < 0)) {
                     problem = "the header line has another name";
                     break;
                 }
@@ -105,13 +106,13 @@ final class IndexFiles {
             table.add(e.getContig(), e.getSize(), e.getLocation(), 0);
             next = e.getSize() == 0 ? e.getLocation() : lastBase(e) + 1;
         }
-        boolean ends = skipLineEnds(in, next);
-        while (ends && in.peek() == '>') {
+        Landing end = skipLineEnds(in, next);
+        while (atHeader(end, in)) {
             String name = readHeader(in, display);
-            ends = skipLineEnds(in, in.position());
             table.add(name, 0, in.position(), 0);
+            end = skipLineEnds(in, in.position());
         }
-        if (table.size() == 0 || !ends || in.peek() >= 0) {
+        if (table.size() == 0 || end == Landing.PAST_END || in.peek() >= 0) {
             throw new StriaException(what + " does not match " + display
                     + " (the file has more records than the index); rebuild it (samtools faidx) or delete it");
         }
@@ -140,6 +141,9 @@ final class IndexFiles {
         }
         if (c == '\n') {
             in.pos++;
+        }
+        if (name.size() == 0) {
+            throw new StriaException(display + ": header line at offset " + start + " has no record name after '>'");
         }
         return name.toString(StandardCharsets.UTF_8);
     }
@@ -177,13 +181,31 @@ final class IndexFiles {
         return null;
     }
 
-    private static boolean skipLineEnds(InputCursor in, long from) {
+    /**
+     * Moves to {@code from} and past any line ends there, as the pre-pass would read them: a '>' opens a
+     * record only at the start of a line, so the answer says whether the cursor ends up at one.
+     */
+    private static Landing skipLineEnds(InputCursor in, long from) {
+        boolean lineStart = from == 0;
+        if (from > 0) {
+            if (!in.moveTo(from - 1)) {
+                return Landing.PAST_END;
+            }
+            lineStart = in.peek() == '\n';
+        }
         if (!in.moveTo(from)) {
-            return false;
+            return Landing.PAST_END;
         }
         for (int c = in.peek(); c == '\r' || c == '\n'; c = in.peek()) {
+            lineStart = c == '\n';
             in.pos++;
         }
-        return true;
+        return lineStart ? Landing.LINE_START : Landing.MID_LINE;
+    }
+
+    private enum Landing { PAST_END, LINE_START, MID_LINE }
+
+    private static boolean atHeader(Landing l, InputCursor in) {
+        return l == Landing.LINE_START && in.peek() == '>';
     }
 }
