@@ -134,6 +134,18 @@ class GenomeReaderTest {
     }
 
     @Test
+    void aPipeIsReadLikeStandardInput() throws Exception {
+        org.junit.jupiter.api.Assumptions.assumeTrue(Files.isExecutable(Path.of("/usr/bin/mkfifo")));
+        Path fifo = dir.resolve("pipe.fa");
+        assertThat(new ProcessBuilder("mkfifo", fifo.toString()).start().waitFor()).isZero();
+        Thread writer = new Thread(() -> write(fifo, gzip(bytes(format(SAMPLE)))));
+        writer.start();
+        List<String> warnings = new ArrayList<>();
+        assertThat(read(fifo, warnings)).isEqualTo(CLEAN);
+        writer.join();
+    }
+
+    @Test
     void contigsAreListedInFileOrderWithExactLengths() {
         Path p = write(dir.resolve("g.fa"), bytes(format(SAMPLE)));
         try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
