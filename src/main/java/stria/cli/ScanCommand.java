@@ -27,7 +27,8 @@ import stria.score.Locus;
 import stria.score.ScoreSettings;
 
 /** {@code stria scan}: the main job. */
-@Command(name = "scan", sortOptions = false, usageHelpAutoWidth = true,
+@Command(name = "scan", sortOptions = false, usageHelpAutoWidth = true, mixinStandardHelpOptions = true,
+        versionProvider = Main.Version.class,
         description = {
             "Scans genomes for tandem repeats and writes one line per locus.",
             "",
@@ -69,19 +70,19 @@ public final class ScanCommand implements Callable<Integer> {
     Integer maxPeriod;
 
     @Option(names = "--min-copies", paramLabel = "X", description = "Smallest copy number (length / period) "
-            + "reported (default: 2 exact, %s imperfect).")
+            + "reported (default: 2 exact, " + ImperfectDefaults.MIN_COPIES + " imperfect).")
     Double minCopies;
 
     @Option(names = "--min-length", paramLabel = "N", description = "Shortest locus reported, in bases "
-            + "(default: " + EXACT_MIN_LENGTH + " exact, %s imperfect).")
+            + "(default: " + EXACT_MIN_LENGTH + " exact, " + ImperfectDefaults.MIN_LENGTH + " imperfect).")
     Integer minLength;
 
     @Option(names = "--min-purity", paramLabel = "X", description = "Lowest purity (0..1) of an imperfect locus "
-            + "(default: %s).")
+            + "(default: " + ImperfectDefaults.MIN_PURITY + ").")
     Double minPurity;
 
     @Option(names = "--min-score", paramLabel = "N", description = "Lowest alignment score of an imperfect "
-            + "locus (default: %s).")
+            + "locus (default: " + ImperfectDefaults.MIN_SCORE + ").")
     Integer minScore;
 
     @Option(names = {"-o", "--bed"}, paramLabel = "FILE", description = "Write BED here (- for standard "
