@@ -97,6 +97,11 @@ public final class AtomicOutputs implements AutoCloseable {
         find(Path.of(path)).afterClose = action;
     }
 
+    /** The temporary file an output is being written to (for post-close actions such as indexing). */
+    public Path tempPath(String path) {
+        return find(Path.of(path)).temp;
+    }
+
     /** Closes every output, runs the post-close actions and renames all temporary files into place. */
     public void commit() {
         for (Entry e : entries) {
