@@ -2,7 +2,6 @@ package stria.cli;
 
 import java.io.IOException;
 import java.io.OutputStream;
-import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -10,8 +9,10 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.ArgGroup;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
 import stria.StriaException;
 import stria.out.AtomicOutputs;
 import stria.out.Tabix;
@@ -21,10 +22,13 @@ import stria.shard.ShardMerge;
  * {@code stria merge}: joins the results of all shards of a split scan into the result one scan of the whole
  * genome would have written. Refuses sets that are incomplete or do not belong together.
  */
-@Command(name = "merge", sortOptions = false, usageHelpAutoWidth = true,
+@Command(name = "merge", sortOptions = false, usageHelpAutoWidth = true, mixinStandardHelpOptions = true,
+        versionProvider = Main.Version.class,
         description = {"Join the results of the shards of one split scan (scan --shard K/N) into one result.",
                 "Files may be given in any order, plain, gzip or BGZF; the set must hold every shard 1..N exactly "
-                        + "once, all from the same input and settings."})
+                        + "once, all from the same input and settings.",
+                ""},
+        footer = {"", "Exit status: 0 success, 1 incomplete or mismatched shard set or I/O error, 2 usage error."})
 public final class MergeCommand implements Callable<Integer> {
 
     static final class Target {
@@ -43,6 +47,12 @@ public final class MergeCommand implements Callable<Integer> {
     @Parameters(arity = "1..*", paramLabel = "FILE", description = "results of the shards of one run")
     List<String> files = new ArrayList<>();
 
+    @Option(names = "--debug", description = "print stack traces of errors")
+    boolean debug;
+
+    @Spec
+    CommandSpec spec;
+
     @Override
     public Integer call() {
         ShardMerge.Format format = target.bed != null ? ShardMerge.Format.BED : ShardMerge.Format.TSV;
@@ -54,12 +64,12 @@ public final class MergeCommand implements Callable<Integer> {
             }
         }
         ShardMerge merge = ShardMerge.check(files, format);
-        String command = commandLine(format, out);
+        String command = commandLine();
         try (AtomicOutputs outputs = new AtomicOutputs()) {
             OutputStream stream = outputs.open(out);
             if (format == ShardMerge.Format.BED && !out.equals("-") && AtomicOutputs.isBgzf(out)) {
                 Path index = outputs.companion(out, out + ".tbi");
-                outputs.afterClose(out, () -> indexBed(temporaryOf(Path.of(out)), index, out));
+                outputs.afterClose(out, () -> indexBed(outputs.tempPath(out), index, out));
             }
             merge.writeTo(stream, command);
             try {
@@ -72,8 +82,10 @@ public final class MergeCommand implements Callable<Integer> {
         return 0;
     }
 
-    private String commandLine(ShardMerge.Format format, String out) {
-        return "merge --" + format.name().toLowerCase(java.util.Locale.ROOT) + " " + out + " " + String.join(" ", files);
+    private String commandLine() {
+        List<String> typed = spec.commandLine().getParseResult().originalArgs();
+        String text = String.join(" ", typed);
+        return !typed.isEmpty() && typed.get(0).equals("merge") ? text : "merge " + text;
     }
 
     /**
@@ -99,29 +111,5 @@ public final class MergeCommand implements Callable<Integer> {
                 // a stray link beside the output is harmless and names this process
             }
         }
-    }
-
-    /**
-     * The temporary file that {@link AtomicOutputs} writes {@code target} to until the commit; the index must
-     * be built from it before it is renamed. Found by the name AtomicOutputs gives it (hidden, beside the
-     * target, tagged with this process id).
-     */
-    private static Path temporaryOf(Path target) {
-        Path abs = target.toAbsolutePath();
-        String prefix = "." + abs.getFileName() + ".stria-" + ProcessHandle.current().pid() + "-";
-        List<Path> found = new ArrayList<>();
-        try (DirectoryStream<Path> dir = Files.newDirectoryStream(abs.getParent(), prefix + "*")) {
-            for (Path p : dir) {
-                if (!Files.isSymbolicLink(p)) {
-                    found.add(p);
-                }
-            }
-        } catch (IOException e) {
-            throw new StriaException("cannot index " + target + ": " + AtomicOutputs.describe(e));
-        }
-        if (found.size() != 1) {
-            throw new IllegalStateException("temporary file of " + target + " not found: " + found);
-        }
-        return found.get(0);
     }
 }

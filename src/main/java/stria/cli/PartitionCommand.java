@@ -21,7 +21,8 @@ import stria.shard.Shard;
  * {@code stria partition}: shows how {@code scan --shard K/N} would split the input, so that N can be chosen
  * before a job array is submitted. The partition depends only on the names and lengths of the contigs.
  */
-@Command(name = "partition", sortOptions = false, usageHelpAutoWidth = true,
+@Command(name = "partition", sortOptions = false, usageHelpAutoWidth = true, mixinStandardHelpOptions = true,
+        versionProvider = Main.Version.class,
         description = {"Show the pieces of the genome each shard of a split scan (scan --shard K/N) covers.",
                 "One line per shard: shard, number of shards, bases, pieces as contig:start-end (1-based, "
                         + "inclusive; '-' for a shard with nothing to scan)."})
@@ -41,6 +42,9 @@ public final class PartitionCommand implements Callable<Integer> {
 
     @Parameters(arity = "1..*", paramLabel = "FASTA", description = "genome files, in the order given to scan")
     List<String> inputs = new ArrayList<>();
+
+    @Option(names = "--debug", description = "print stack traces of errors")
+    boolean debug;
 
     @Override
     public Integer call() {
