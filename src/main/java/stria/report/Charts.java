@@ -50,6 +50,8 @@ final class Charts {
     static {
         // charts are drawn off screen; a server or CI host has no display
         System.setProperty("java.awt.headless", "true");
+        // otherwise rotated labels reach the SVG as glyph outlines: larger, blurry when scaled, not searchable
+        org.jfree.chart.text.TextUtils.setUseDrawRotatedStringWorkaround(false);
     }
 
     /** Colours of the period classes, in PeriodClass order: distinct in hue and lightness, so they survive grey print. */
