@@ -57,10 +57,12 @@ public final class HtmlReport {
             cards();
             classTable();
             contigs();
-            periods();
-            motifs();
-            density();
-            lengthPurity();
+            if (s.genome().loci() > 0) {
+                periods();
+                motifs();
+                density();
+                lengthPurity();
+            }
             provenance();
             out.println("<footer><p><strong>Research use only.</strong> These results describe sequence "
                     + "patterns in an assembly and are not a validated test. Some tandem-repeat loci matter "
@@ -80,7 +82,7 @@ public final class HtmlReport {
                 w.add("The scan was limited to regions; bases scanned and shares refer to those regions only.");
             }
             if (s.genome().loci() == 0) {
-                w.add("These results contain no loci.");
+                w.add("These results contain no loci, so there is nothing to chart.");
             }
             for (String m : w) {
                 out.println("<p class=\"warn\">" + esc(m) + "</p>");
@@ -135,7 +137,7 @@ public final class HtmlReport {
                     ? "The " + Charts.TOP_CONTIGS + " longest contigs, the other " + Fmt.count(n - Charts.TOP_CONTIGS)
                     + " together, and the genome."
                     : n > 1 ? "Each contig and the genome." : "";
-            if (n > 1) {
+            if (n > 1 && s.genome().loci() > 0) {
                 figure("Share of each contig in repeats, by period class", intro,
                         Charts.svg(Charts.contigShares(r, s), Charts.WIDTH, Charts.contigSharesHeight(r), "shares"));
             }
@@ -198,7 +200,8 @@ public final class HtmlReport {
                     + "<code>stria report --summary</code> lists every contig." : "In input order.";
             int unscanned = s.contigs().size() - rows.size() - hidden;
             if (unscanned > 0) {
-                order += " " + Fmt.count(unscanned) + " contigs outside the scanned regions are not listed.";
+                order += " " + Fmt.count(unscanned) + (unscanned == 1 ? " contig" : " contigs")
+                        + " outside the scanned regions " + (unscanned == 1 ? "is" : "are") + " not listed.";
             }
             out.println("<p class=\"caption\">" + order + " Class columns give the share of the contig's "
                     + "scanned bases in repeats of that class.</p>");
@@ -213,7 +216,8 @@ public final class HtmlReport {
 
         private void motifs() {
             out.println("<section><h2>Motif classes</h2>");
-            figure("The " + Math.min(Charts.TOP_MOTIFS, r.motifClasses().size()) + " most frequent motif classes",
+            int shown = Math.min(Charts.TOP_MOTIFS, r.motifClasses().size());
+            figure(shown == 1 ? "The motif class" : "The " + shown + " most frequent motif classes",
                     "A motif class joins a motif, its rotations and their reverse complements (AC, CA, GT, TG). "
                             + "Counts are loci; long motifs are shortened.",
                     Charts.svg(Charts.motifs(r), Charts.WIDTH, Charts.motifsHeight(r), "motifs"));

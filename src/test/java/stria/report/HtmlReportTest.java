@@ -78,6 +78,30 @@ class HtmlReportTest {
     }
 
     @Test
+    void emptyAndRegionLimitedResultsStillMakeAPage() throws Exception {
+        var contigs = List.of(new stria.out.ResultHeader.Contig("a", 50_000),
+                new stria.out.ResultHeader.Contig("b", 8_000));
+        Path empty = ResultFixtures.write(dir.resolve("empty.tsv"), ResultFixtures.header(contigs, null, List.of()),
+                List.of());
+        String html = render(empty);
+        assertThat(html).contains("These results contain no loci").contains("</html>").doesNotContain("<svg");
+
+        Path limited = ResultFixtures.write(dir.resolve("limited.tsv"), ResultFixtures.header(contigs, null,
+                List.of(new stria.out.ResultHeader.Span("a", 1_000, 21_000))),
+                List.of(ResultFixtures.row("a", 2_000, 2_040, "AC", 0.95)));
+        html = render(limited);
+        assertThat(html).contains("limited to regions").contains("a:1,001-21,000").contains("bases scanned</th>")
+                .contains("1 contig outside the scanned regions is not listed");
+    }
+
+    private static String render(Path tsv) {
+        ResultSet r = ResultReader.read(List.of(tsv.toString()));
+        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+        HtmlReport.write(r, Summary.of(r), bytes);
+        return bytes.toString(StandardCharsets.UTF_8);
+    }
+
+    @Test
     void escapesWhatComesFromTheFiles() {
         assertThat(HtmlReport.esc("<a href=\"x\">&'")).isEqualTo("&lt;a href=&quot;x&quot;&gt;&amp;&#39;");
     }
