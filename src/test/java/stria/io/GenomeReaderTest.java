@@ -219,7 +219,7 @@ class GenomeReaderTest {
         assertThat(read(p, warnings)).containsExactly(Map.entry("a", "ACGTAC"), Map.entry("b", "GG"));
         assertThat(warnings).containsExactly(p + ": skipped 3 records with no sequence (first: e0)");
         write(dir.resolve("e.fa.fai"), bytes("a\t6\t7\t4\t5\nb\t2\t26\t2\t3\nc\t2\t30\t2\t3\n"));
-        refused(p, "e.fa.fai does not match", "record c");
+        refusedAtOpen(p, "e.fa.fai does not match", "record c");
     }
 
     @Test
@@ -249,6 +249,14 @@ class GenomeReaderTest {
                 .hasMessageStartingWith(p.toString())
                 .hasMessageContainingAll(parts)
                 .satisfies(e -> assertThat(e.getMessage()).doesNotContain("\n"));
+    }
+
+    /** Refused before any sequence is loaded, so that a command fails before it writes anything. */
+    private void refusedAtOpen(Path p, String... parts) {
+        assertThatThrownBy(() -> GenomeReader.open(p.toString(), w -> { }).close())
+                .isInstanceOf(StriaException.class)
+                .hasMessageStartingWith(p.toString())
+                .hasMessageContainingAll(parts);
     }
 
     @Test
@@ -350,7 +358,7 @@ class GenomeReaderTest {
         Path other = FastaFiles.writeBgzf(dir.resolve("other.fa.gz"), bytes(format(SAMPLE)));
         FastaFiles.faidx(other);
         Files.copy(dir.resolve("other.fa.gz.fai"), dir.resolve("g.fa.gz.fai"));
-        refused(p, "g.fa.gz.fai does not match", "record ctg1");
+        refusedAtOpen(p, "g.fa.gz.fai does not match", "record ctg1");
     }
 
     @Test
@@ -363,7 +371,7 @@ class GenomeReaderTest {
         int cut = text.indexOf(">c3");
         String shorter = text.substring(0, cut - 61) + text.substring(cut);
         FastaFiles.writeBgzf(p, bytes(shorter));
-        refused(p, "g.fa.gz.fai does not match");
+        refusedAtOpen(p, "g.fa.gz.fai does not match");
     }
 
     @Test
@@ -375,13 +383,13 @@ class GenomeReaderTest {
         assertThat(read(p)).hasSize(5);
         // same sizes of input, different content: block boundaries differ
         Files.copy(dir.resolve("other.fa.gz.gzi"), dir.resolve("g.fa.gz.gzi"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        refused(p, "g.fa.gz.gzi does not match");
+        refusedAtOpen(p, "g.fa.gz.gzi does not match");
         Path small = FastaFiles.writeBgzf(dir.resolve("small.fa.gz"), bytes(format(SAMPLE)));
         FastaFiles.gzindex(small);
         Files.copy(dir.resolve("small.fa.gz.gzi"), dir.resolve("g.fa.gz.gzi"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        refused(p, "g.fa.gz.gzi does not match");
+        refusedAtOpen(p, "g.fa.gz.gzi does not match");
         write(dir.resolve("g.fa.gz.gzi"), bytes("garbage"));
-        refused(p, "g.fa.gz.gzi");
+        refusedAtOpen(p, "g.fa.gz.gzi");
     }
 
     @Test
@@ -389,13 +397,13 @@ class GenomeReaderTest {
         Path p = write(dir.resolve("g.fa"), bytes(format(SAMPLE)));
         FastaFiles.faidx(p);
         write(p, bytes(format(SAMPLE).replace(">ctg2", ">ctg2b")));
-        refused(p, "g.fa.fai does not match", "record ctg2");
+        refusedAtOpen(p, "g.fa.fai does not match", "record ctg2");
         write(p, bytes(format(SAMPLE) + ">extra\nACGT\n"));
-        refused(p, "g.fa.fai does not match", "more records");
+        refusedAtOpen(p, "g.fa.fai does not match", "more records");
         write(p, bytes(format(SAMPLE, 50, "\n", true)));
-        refused(p, "g.fa.fai does not match");
+        refusedAtOpen(p, "g.fa.fai does not match");
         write(dir.resolve("g.fa.fai"), bytes("not an index\n"));
-        refused(p, "g.fa.fai");
+        refusedAtOpen(p, "g.fa.fai");
     }
 
     @Test
