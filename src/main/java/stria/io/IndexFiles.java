@@ -126,7 +126,7 @@ final class IndexFiles {
         java.io.ByteArrayOutputStream name = new java.io.ByteArrayOutputStream();
         boolean inName = true;
         int c = in.peek();
-        for (long n = 0; c >= 0 && c != '\n' && n <= 2L * FastaSyntax.MAX_NAME; n++) {
+        while (c >= 0 && c != '\n') {
             // the pre-pass refuses control bytes in headers; an index must not make such a file acceptable
             if (FastaSyntax.isControl(c)) {
                 throw new StriaException(display + ": " + FastaSyntax.describe(c) + " in the header line at offset "
@@ -135,6 +135,10 @@ final class IndexFiles {
             inName = inName && c != ' ' && c != '\t' && c != '\r';
             if (inName) {
                 name.write(c);
+                if (name.size() > FastaSyntax.MAX_NAME) {
+                    throw new StriaException(display + ": header line at offset " + start + ": record name longer than "
+                            + FastaSyntax.MAX_NAME + " bytes; this is not a FASTA file");
+                }
             }
             in.pos++;
             c = in.peek();

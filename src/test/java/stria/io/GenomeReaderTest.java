@@ -75,6 +75,7 @@ class GenomeReaderTest {
                 Arguments.of("no final newline", format(SAMPLE, 60, "\n", false)),
                 Arguments.of("CRLF without final line end", format(SAMPLE, 60, "\r\n", false)),
                 Arguments.of("tab before description", clean.replace(">ctg1 first", ">ctg1\tfirst")),
+                Arguments.of("byte order mark", "\u00ef\u00bb\u00bf" + clean),
                 Arguments.of("blank lines", "\n\n" + clean.replace("\n>", "\n\n\n>") + "\n\n"));
     }
 
