@@ -109,6 +109,11 @@ public final class GenomeReader implements AutoCloseable {
             checkFile(path, display);
             Compression kind;
             try {
+                String foreign = Compression.foreign(path);
+                if (foreign != null) {
+                    throw new StriaException(display + ": " + foreign + "-compressed; stria reads plain, gzip and BGZF"
+                            + " FASTA: decompress it first" + (foreign.equals("zip") ? "" : " (" + foreign + " -dc)"));
+                }
                 kind = Compression.detect(path);
             } catch (IOException e) {
                 throw new StriaException(display + ": cannot read (" + InputCursor.oneLine(e) + ")", e);

@@ -294,6 +294,14 @@ class GenomeReaderTest {
     }
 
     @Test
+    void otherCompressionsAreNamed() {
+        refused(write(dir.resolve("g.fa.xz"), bytes("\u00fd7zXZ\u0000\u0000\u0004rest")), "xz-compressed", "xz -dc");
+        refused(write(dir.resolve("g.fa.bz2"), bytes("BZh91AY&SYrest")), "bzip2-compressed");
+        refused(write(dir.resolve("g.fa.zst"), bytes("\u0028\u00b5\u002f\u00fdrest")), "zstd-compressed");
+        refused(write(dir.resolve("g.zip"), bytes("PK\u0003\u0004rest")), "zip-compressed");
+    }
+
+    @Test
     void textWithoutHeader() {
         refused(write(dir.resolve("seq.txt"), bytes("ACGTACGT\nACGT\n")), "not a FASTA file: line 1");
         refused(write(dir.resolve("notes.txt"), bytes("\nsome notes about a genome\n>a\nACGT\n")), "line 2");
