@@ -224,7 +224,11 @@ public final class GenomeReader implements AutoCloseable {
     private static Path spool(Path source, String display) {
         Path tmp = null;
         try {
-            tmp = Files.createTempFile("stria-input-", ".fa");
+            // clusters point TMPDIR at node-local scratch; the JVM default ignores it
+            String env = System.getenv("TMPDIR");
+            Path where = env != null && !env.isEmpty() && Files.isDirectory(Path.of(env)) ? Path.of(env)
+                    : Path.of(System.getProperty("java.io.tmpdir"));
+            tmp = Files.createTempFile(where, "stria-input-", ".fa");
             tmp.toFile().deleteOnExit();
             if (source == null) {
                 Files.copy(System.in, tmp, StandardCopyOption.REPLACE_EXISTING);
@@ -236,8 +240,8 @@ public final class GenomeReader implements AutoCloseable {
             return tmp;
         } catch (IOException e) {
             deleteQuietly(tmp);
-            throw new StriaException(display + ": cannot copy the input to a temporary file ("
-                    + InputCursor.oneLine(e) + ")", e);
+            throw new StriaException(display + ": cannot copy the input to a temporary file " + tmp + " ("
+                    + InputCursor.oneLine(e) + "); set TMPDIR to a directory with more room", e);
         }
     }
 
