@@ -69,7 +69,7 @@ public final class RunFinder {
         for (int r = 0; r < len; r++) {
             isa[sa[r]] = r;
         }
-        branching.collect(sa, isa, lcp, len, maxPeriod);
+        branching.collect(codes, from, sa, isa, lcp, len, maxPeriod);
         long[] sq = branching.squares();
         int count = branching.count();
         Arrays.sort(sq, 0, count);
