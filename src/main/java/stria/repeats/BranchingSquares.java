@@ -24,6 +24,8 @@ final class BranchingSquares {
     /** Child boundaries (l-indices) of the intervals on the stack, innermost last. */
     private int[] bnd = new int[256];
     private long[] squares = new long[1024];
+    private long[] spare = new long[0];
+    private final int[] histogram = new int[3 << RADIX_BITS];
     /** Per rank: the letters around its suffix, see {@link #packContexts}. */
     private long[] context = new long[0];
     private int count;
@@ -251,6 +253,71 @@ final class BranchingSquares {
         }
         int rp = isa[p];
         return rp >= lo && rp <= hi;
+    }
+
+    private static final int RADIX_BITS = 12;
+
+    /**
+     * Sorts the squares by end, then length: LSD radix sort on the key (end, l) squeezed into as many bits
+     * as n and the largest l need, at most three passes of 12 bits for windows up to a few Mb, counted in
+     * one read. A comparison sort of a million longs costs several times more.
+     */
+    void sortByEndThenLength(int n, int maxLength) {
+        int lenBits = 32 - Integer.numberOfLeadingZeros(Math.max(1, maxLength));
+        int keyBits = 32 - Integer.numberOfLeadingZeros(n) + lenBits;
+        int passes = (keyBits + RADIX_BITS - 1) / RADIX_BITS;
+        if (passes > 3 || count < 64) {
+            Arrays.sort(squares, 0, count);
+            return;
+        }
+        if (spare.length < count) {
+            spare = new long[squares.length];
+        }
+        int[] h = histogram;
+        Arrays.fill(h, 0);
+        long lenMask = (1L << lenBits) - 1;
+        int digit = (1 << RADIX_BITS) - 1;
+        long[] src = squares, dst = spare;
+        for (int i = 0; i < count; i++) {
+            long x = src[i];
+            long key = ((x >>> 32) << lenBits) | (x & lenMask);
+            for (int p = 0; p < passes; p++) {
+                h[(p << RADIX_BITS) + (int) ((key >>> (p * RADIX_BITS)) & digit)]++;
+            }
+        }
+        for (int p = 0; p < passes; p++) {
+            int off = p << RADIX_BITS;
+            if (h[off + (int) ((((src[0] >>> 32) << lenBits) | (src[0] & lenMask)) >>> (p * RADIX_BITS) & digit)] == count) {
+                continue; // every key has the same digit here
+            }
+            int sum = 0;
+            for (int d = 0; d <= digit; d++) {
+                int c = h[off + d];
+                h[off + d] = sum;
+                sum += c;
+            }
+            int shift = p * RADIX_BITS;
+            for (int i = 0; i < count; i++) {
+                long x = src[i];
+                long key = ((x >>> 32) << lenBits) | (x & lenMask);
+                dst[h[off + (int) ((key >>> shift) & digit)]++] = x;
+            }
+            long[] t = src;
+            src = dst;
+            dst = t;
+        }
+        if (src != squares) {
+            spare = squares;
+            squares = src;
+        }
+    }
+
+    /** Replaces the collected squares, for tests of the sort. */
+    void addAllForTest(long[] keys) {
+        count = 0;
+        for (long k : keys) {
+            add((int) (k >>> 32), (int) k);
+        }
     }
 
     private void add(int end, int l) {

@@ -70,9 +70,9 @@ public final class RunFinder {
             isa[sa[r]] = r;
         }
         branching.collect(codes, from, sa, isa, lcp, len, maxPeriod);
+        branching.sortByEndThenLength(len, Math.min(maxPeriod, len));
         long[] sq = branching.squares();
         int count = branching.count();
-        Arrays.sort(sq, 0, count);
         boolean anyBreak = false;
         for (int i = from, e = from + len; i < e; i++) {
             if (codes[i] == Bases.BREAK) {
