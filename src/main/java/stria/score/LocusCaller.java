@@ -95,12 +95,34 @@ public final class LocusCaller {
         if (from >= to) {
             return List.of();
         }
+        // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
+        // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
+        long pad = 4L * minimumContext();
+        while (true) {
+            int a = (int) Math.max(lo, from - pad);
+            int b = (int) Math.min(hi, to + pad);
+            List<Locus> r = solve(seq, length, seeds, a, b, from, to);
+            if (r != null) {
+                return r;
+            }
+            if (a == lo && b == hi) {
+                throw new NeedMoreContextException("no quiet point within the known runs around [" + from + ", "
+                        + to + ") given [" + lo + ", " + hi + ")");
+            }
+            pad *= 4;
+        }
+    }
+
+    /** The loci of [from, to) computed from what is known in [lo, hi), or null if that cannot be decided. */
+    private List<Locus> solve(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
         int maxP = settings.maxPeriod();
         // all seeds known in [lo, hi): exact ones from the pipeline, recurrence ones from the sequence
-        RunList all = new RunList(seeds.size() + 256);
+        RunList all = new RunList(256);
         for (int i = 0; i < seeds.size(); i++) {
-            if (isSeed(seeds.start(i), seeds.end(i), seeds.period(i))) {
-                all.add(seeds.start(i), seeds.end(i), seeds.period(i));
+            int s = seeds.start(i);
+            int e = seeds.end(i);
+            if (e > lo && s < hi && isSeed(s, e, seeds.period(i))) {
+                all.add(s, e, seeds.period(i));
             }
         }
         long T0 = System.nanoTime();
@@ -148,8 +170,7 @@ public final class LocusCaller {
             q2 = Math.max(to, compEnd[c]);
         }
         if (q1 < minQ1 || q2 > maxQ2) {
-            throw new NeedMoreContextException("no quiet point within the known runs around [" + from + ", " + to
-                    + ") given [" + lo + ", " + hi + ")");
+            return null;
         }
 
         List<Cand> cands = new ArrayList<>();
@@ -185,6 +206,10 @@ public final class LocusCaller {
             if (cand == null) {
                 continue;
             }
+            if (DEBUG) {
+                System.err.println("cand seed " + s + "-" + e + "/" + p + " -> " + cand.start + "-" + cand.end + "/" + cand.period
+                        + " score " + cand.score + " purity " + cand.purity());
+            }
             mark(covS, covE, p, cand);
             mark(covS, covE, cand.period, cand);
             if (p >= RecurrenceSeeds.MIN_PERIOD) {
@@ -192,6 +217,21 @@ public final class LocusCaller {
             }
             if (passes(cand)) {
                 cands.add(cand);
+            }
+            // a seed copy carrying an indel, or a distance spanning several units, gives a period a little
+            // off or a multiple; the period the locus' bases agree with best gets its own candidate
+            int q = otherPeriod(seq, cand.start, cand.end, cand.period);
+            if (q > 0) {
+                Cand alt = candidate(seq, cand.start, q, compStart[ci], compEnd[ci]);
+                if (alt != null) {
+                    mark(covS, covE, alt.period, alt);
+                    if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
+                        active.add(alt);
+                    }
+                    if (passes(alt)) {
+                        cands.add(alt);
+                    }
+                }
             }
         }
         long T3 = System.nanoTime();
@@ -277,14 +317,26 @@ public final class LocusCaller {
 
     // ---------------------------------------------------------------- one candidate
 
-    // per phase: counts of A, C, G, T aligned there, deletions of it, insertions just before it
+    // per phase: counts of A, C, G, T aligned there, deletions of it, copies inserting just before it and
+    // the bases they insert
     private int[] counts = new int[64];
     private static final int SLOTS = 7;
-    /** Copies that vote on the provisional consensus: plenty to outvote errors, bounded work in satellites. */
-    private static final int VOTE_COPIES = 24;
     private static final int DELETED = 4;
     private static final int INSERTED = 5;
     private static final int INSERTED_BASES = 6;
+    /** Copies that vote on the provisional consensus: plenty to outvote errors, bounded work in satellites. */
+    private static final int VOTE_COPIES = 24;
+    /** Rounds of voting on the locus' own alignment; each must raise the score to be kept. */
+    private static final int VOTE_ROUNDS = 3;
+
+    private int[] clearCounts(int p) {
+        if (counts.length < SLOTS * p) {
+            counts = new int[SLOTS * p];
+        } else {
+            Arrays.fill(counts, 0, SLOTS * p, 0);
+        }
+        return counts;
+    }
 
     private Cand candidate(byte[] seq, int s, int p, int cs, int ce) {
         byte[] m0 = new byte[p];
@@ -295,13 +347,8 @@ public final class LocusCaller {
             }
             m0[k] = (byte) code;
         }
-        if (counts.length < SLOTS * p) {
-            counts = new int[SLOTS * p];
-        } else {
-            Arrays.fill(counts, 0, SLOTS * p, 0);
-        }
+        int[] cnt = clearCounts(p);
         int xd = xdrop(p);
-        final int[] cnt = counts;
         // the provisional consensus is voted on the first copies only; the final one on the whole locus
         aligner.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
         int right = aligner.bestI();
@@ -342,29 +389,53 @@ public final class LocusCaller {
         }
         int a = s - left;
         int phaseA = left == 0 ? 0 : Math.floorMod(p - leftJ, p);
-        // consensus with gaps as votes: a phase most copies lack is dropped, a base most copies add is
-        // inserted, so a seed copy carrying an indel does not fix the period
-        byte[] m1 = new byte[2 * p];
-        int p1 = 0;
-        int phaseA1 = 0;
+        int[] phaseMap = new int[1];
+        byte[] m = consensus(cnt, m0, phaseA, phaseMap);
+        if (m == null) {
+            return null;
+        }
+        Cand k = align(seq, a, m, m.length, phaseMap[0], ce - a);
+        for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
+            byte[] next = consensus(counts, k.motif, k.phaseA, phaseMap);
+            if (next == null || Arrays.equals(next, k.motif)) {
+                break;
+            }
+            Cand r = align(seq, a, next, next.length, phaseMap[0], ce - a);
+            if (r == null || r.score <= k.score) {
+                break;
+            }
+            k = r;
+        }
+        return k;
+    }
+
+    /**
+     * Majority consensus with gaps as votes: a phase most copies lack is dropped, and where most copies
+     * insert, as many bases as they insert on average are added (placeholder letters, replaced by the
+     * next vote). Reduced to its primitive root. {@code phaseMap[0]} receives the new phase of
+     * {@code phase}. Null when nothing is left.
+     */
+    private static byte[] consensus(int[] cnt, byte[] base, int phase, int[] phaseMap) {
+        int p = base.length;
+        byte[] m = new byte[p + 8];
+        int n = 0;
+        int mapped = 0;
         for (int ph = 0; ph < p; ph++) {
             int o = SLOTS * ph;
             int through = cnt[o] + cnt[o + 1] + cnt[o + 2] + cnt[o + 3] + cnt[o + DELETED];
-            if (ph == phaseA) {
-                phaseA1 = p1;
+            if (ph == phase) {
+                mapped = n;
             }
-            if (2 * cnt[o + INSERTED] > through && through > 0) {
-                // as many bases as the copies insert on average; their letters are placeholders that the
-                // vote on the final alignment (refine) replaces
+            if (through > 0 && 2 * cnt[o + INSERTED] > through) {
                 int extra = Math.max(1, Math.round(cnt[o + INSERTED_BASES] / (float) cnt[o + INSERTED]));
                 for (int x = 0; x < extra; x++) {
-                    if (p1 == m1.length) {
-                        m1 = Arrays.copyOf(m1, 2 * m1.length);
+                    if (n == m.length) {
+                        m = Arrays.copyOf(m, 2 * m.length);
                     }
-                    m1[p1++] = m0[ph];
+                    m[n++] = base[ph];
                 }
             }
-            int best = m0[ph];
+            int best = base[ph];
             int bc = cnt[o + best];
             for (int b = 0; b < 4; b++) {
                 if (cnt[o + b] > bc) {
@@ -375,68 +446,29 @@ public final class LocusCaller {
             if (cnt[o + DELETED] > bc) {
                 continue;
             }
-            if (p1 == m1.length) {
-                m1 = Arrays.copyOf(m1, 2 * m1.length);
+            if (n == m.length) {
+                m = Arrays.copyOf(m, 2 * m.length);
             }
-            m1[p1++] = (byte) best;
+            m[n++] = (byte) best;
         }
-        if (DEBUG && p >= 7) {
-            StringBuilder sb = new StringBuilder("vote s=" + s + " p=" + p + " -> " + p1 + " a=" + a + ":");
-            for (int ph = 0; ph < p; ph++) {
-                int o = SLOTS * ph;
-                if (cnt[o + DELETED] > 0 || cnt[o + INSERTED] > 0) {
-                    sb.append(' ').append(ph).append("[").append(cnt[o]).append(',').append(cnt[o + 1]).append(',').append(cnt[o + 2]).append(',').append(cnt[o + 3]).append(" d").append(cnt[o + DELETED]).append(" i").append(cnt[o + INSERTED]).append(']');
-                }
-            }
-            System.err.println(sb);
-        }
-        if (p1 == 0) {
+        if (n == 0) {
             return null;
         }
-        m1 = Arrays.copyOf(m1, p1);
-        phaseA1 = Math.min(phaseA1, p1 - 1);
-        int root = primitiveRoot(m1);
-        if (root < p1) {
-            m1 = Arrays.copyOf(m1, root);
-            phaseA1 %= root;
+        m = Arrays.copyOf(m, n);
+        mapped = Math.min(mapped, n - 1);
+        int root = primitiveRoot(m);
+        if (root < n) {
+            m = Arrays.copyOf(m, root);
+            mapped %= root;
         }
-        Cand k = align(seq, a, m1, m1.length, phaseA1, ce - a);
-        return k == null ? null : refine(seq, k, ce);
+        phaseMap[0] = mapped;
+        return m;
     }
 
-    /** Re-votes the consensus letters of a candidate on its own alignment and realigns if it changed. */
-    private Cand refine(byte[] seq, Cand k, int ce) {
-        int p = k.period;
-        int[] c = new int[4 * p];
-        int[] phaseAt = k.phaseAt;
-        for (int i = 0; i < phaseAt.length; i++) {
-            int x = Bases.code(seq[k.start + i]);
-            if (x >= 0 && x < 4) {
-                c[4 * phaseAt[i] + x]++;
-            }
-        }
-        byte[] m = k.motif.clone();
-        boolean changed = false;
-        for (int ph = 0; ph < p; ph++) {
-            int best = m[ph];
-            for (int b = 0; b < 4; b++) {
-                if (c[4 * ph + b] > c[4 * ph + best]) {
-                    best = b;
-                }
-            }
-            if (best != m[ph]) {
-                m[ph] = (byte) best;
-                changed = true;
-            }
-        }
-        if (!changed || primitiveRoot(m) < p) {
-            return k;
-        }
-        Cand r = align(seq, k.start, m, p, k.phaseA, ce - k.start);
-        return r != null && r.score >= k.score ? r : k;
-    }
-
-    /** Final alignment from a fixed left end: gives the right end, the counts and the phase of every base. */
+    /**
+     * Final alignment from a fixed left end: gives the right end, the counts and the phase of every base,
+     * and leaves the votes of the alignment in {@link #counts}.
+     */
     private Cand align(byte[] seq, int a, byte[] motif, int p, int phaseA, int cap) {
         aligner.extend(seq, a, 1, motif, p, phaseA, cap, xdrop(p));
         int len = aligner.bestI();
@@ -452,23 +484,85 @@ public final class LocusCaller {
         k.score = aligner.bestScore();
         int[] phaseAt = new int[len];
         k.phaseAt = phaseAt;
+        int[] cnt = clearCounts(p);
+        final int[] lastIns = {-1};
         aligner.traceback((i, j, op) -> {
             if (op == WrapAligner.DIAG) {
                 int ph = (phaseA + j - 1) % p;
                 phaseAt[i - 1] = ph;
-                if (motif[ph] == Bases.code(seq[a + i - 1])) {
+                int x = Bases.code(seq[a + i - 1]);
+                cnt[SLOTS * ph + x]++;
+                if (motif[ph] == x) {
                     k.matches++;
                 } else {
                     k.mismatches++;
                 }
             } else if (op == WrapAligner.INS) {
-                phaseAt[i - 1] = (phaseA + j) % p;
+                int ph = (phaseA + j) % p;
+                phaseAt[i - 1] = ph;
                 k.insertions++;
+                cnt[SLOTS * ph + INSERTED_BASES]++;
+                if (lastIns[0] != j) {
+                    cnt[SLOTS * ph + INSERTED]++;
+                }
             } else {
                 k.deletions++;
+                cnt[SLOTS * ((phaseA + j - 1) % p) + DELETED]++;
             }
+            lastIns[0] = op == WrapAligner.INS ? j : -1;
         });
         return k;
+    }
+
+    /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
+    private static double agreement(byte[] seq, int a, int b, int q) {
+        int n = b - a - q;
+        if (n <= 0) {
+            return 0;
+        }
+        int hit = 0;
+        for (int x = a; x < b - q; x++) {
+            int c = Bases.code(seq[x]);
+            if (c == Bases.code(seq[x + q]) && c >= 0 && c <= 3) {
+                hit++;
+            }
+        }
+        return hit / (double) n;
+    }
+
+    /**
+     * A period other than p that the bases of [a, b) support at least as well: the best of p - 3 .. p + 3
+     * when it beats p, else the shortest near-divisor of p that agrees nearly as well; -1 if none.
+     */
+    private static int otherPeriod(byte[] seq, int a, int b, int p) {
+        if (p < 4 || b - a < 2 * p) {
+            return -1;
+        }
+        double base = agreement(seq, a, b, p);
+        int best = -1;
+        double bestAgree = base;
+        for (int q = Math.max(1, p - 3); q <= p + 3; q++) {
+            if (q != p && b - a >= 2 * q) {
+                double g = agreement(seq, a, b, q);
+                if (g > bestAgree + 0.02) {
+                    bestAgree = g;
+                    best = q;
+                }
+            }
+        }
+        if (best > 0) {
+            return best;
+        }
+        for (int m = Math.min(p / 2, 12); m >= 2; m--) {
+            // shortest first: the largest divisor count gives the shortest unit
+            int c = Math.round(p / (float) m);
+            for (int q = Math.max(1, c - 2); q <= c + 2 && q < p; q++) {
+                if (agreement(seq, a, b, q) >= base - 0.05 && agreement(seq, a, b, q) >= 0.5) {
+                    return q;
+                }
+            }
+        }
+        return -1;
     }
 
     static int primitiveRoot(byte[] m) {
