@@ -54,6 +54,7 @@ public final class LocusCaller {
     /** Bases beyond one copy an exact run needs to seed: 6 keeps random DNA to a few seeds per kb. */
     public static final int SEED_EXTRA = 6;
     static final boolean DEBUG = Boolean.getBoolean("stria.debug");
+    public static long[] STAT = new long[8];
 
     private final ScoreSettings settings;
     private final WrapAligner aligner = new WrapAligner();
@@ -79,7 +80,7 @@ public final class LocusCaller {
 
     /** Score drop that ends an extension: a long unit may carry a burst of errors and still continue. */
     static int xdrop(int p) {
-        return 32 + Math.min(2 * p, 160);
+        return 30 + Math.min(p, 60);
     }
 
     /** Bases beyond {@code [from, to)} a call may need on each side in the best case (no repeat nearby). */
@@ -202,7 +203,9 @@ public final class LocusCaller {
                 continue;
             }
             int ci = componentAt(compStart, compEnd, comps, s);
+            long r0 = WrapAligner.ROWS;
             Cand cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
+            STAT[0]++; STAT[1] += WrapAligner.ROWS - r0; if (WrapAligner.ROWS - r0 > 20000 && cand != null) System.err.println("big " + s + "/" + p + " rows " + (WrapAligner.ROWS - r0) + " -> " + cand.start + "-" + cand.end + "/" + cand.period); if (p < 7) { STAT[6]++; STAT[7] += WrapAligner.ROWS - r0; }
             if (cand == null) {
                 continue;
             }
@@ -222,7 +225,9 @@ public final class LocusCaller {
             // off or a multiple; the period the locus' bases agree with best gets its own candidate
             int q = otherPeriod(seq, cand.start, cand.end, cand.period);
             if (q > 0) {
+                long r1 = WrapAligner.ROWS;
                 Cand alt = candidate(seq, cand.start, q, compStart[ci], compEnd[ci]);
+                STAT[2]++; STAT[3] += WrapAligner.ROWS - r1;
                 if (alt != null) {
                     mark(covS, covE, alt.period, alt);
                     if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
@@ -400,7 +405,9 @@ public final class LocusCaller {
             if (next == null || Arrays.equals(next, k.motif)) {
                 break;
             }
+            long r2 = WrapAligner.ROWS;
             Cand r = align(seq, a, next, next.length, phaseMap[0], ce - a);
+            STAT[4]++; STAT[5] += WrapAligner.ROWS - r2;
             if (r == null || r.score <= k.score) {
                 break;
             }
@@ -514,8 +521,12 @@ public final class LocusCaller {
         return k;
     }
 
+    private static final int AGREEMENT_SAMPLE = 1500;
+
     /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
     private static double agreement(byte[] seq, int a, int b, int q) {
+        // a sample of the locus says as much as all of it about which period fits
+        b = Math.min(b, a + AGREEMENT_SAMPLE + q);
         int n = b - a - q;
         if (n <= 0) {
             return 0;

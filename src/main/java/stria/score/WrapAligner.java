@@ -23,7 +23,7 @@ public final class WrapAligner {
     public static final int GAP = -5;
 
     /** Half-width of the band: net drift tolerated between two rows is far smaller. */
-    static final int HALF = 8;
+    static final int HALF = 6;
     static final int BAND = 2 * HALF + 1;
     private static final int NEG = Integer.MIN_VALUE / 4;
     // traceback codes
@@ -34,11 +34,15 @@ public final class WrapAligner {
     private int[] cur = new int[BAND + 2 * PAD];
     private byte[] trace = new byte[BAND * 1024];
     private int[] rowLo = new int[1024];
+    // the template unrolled: tmpl[x] is template letter x (letter 0 unused), grown on demand
+    private byte[] tmpl = new byte[1024];
+    private int tmplLen;
 
     // result of the last extend
     private int bestI;
     private int bestJ;
     private int bestScore;
+    public static long ROWS, CALLS;
 
     /** Text rows consumed by the best alignment. */
     public int bestI() {
@@ -72,11 +76,14 @@ public final class WrapAligner {
         Arrays.fill(trace, 0, BAND, START);
         int lo = 0;
         int prevBestK = 0;
+        tmplLen = 0;
         bestI = 0;
         bestJ = 0;
         bestScore = 0;
         int pos = pos0;
+        CALLS++;
         for (int i = 1; i <= cap; i++, pos += dir) {
+            ROWS++;
             int t = Bases.code(seq[pos]);
             if (t < 0 || t > 3) {
                 break;
@@ -92,11 +99,16 @@ public final class WrapAligner {
             int tb = i * BAND;
             int rowMax = NEG;
             int rowMaxK = 0;
-            int ph = Math.floorMod(phase + dir * (lo - 1), p);
+            if (lo + BAND > tmplLen) {
+                unroll(motif, p, phase, dir, lo + BAND);
+            }
+            byte[] tm = tmpl;
             int left = NEG;
             for (int k = 0; k < BAND; k++) {
                 int pk = k + shift; // padded index of the same column in the row above
-                int best = prev[pk - 1] + (motif[ph] == t ? MATCH : MISMATCH);
+                // entering column j diagonally consumes template letter j; column 0 has no letter, but its
+                // diagonal predecessor is unreachable anyway
+                int best = prev[pk - 1] + (tm[lo + k] == t ? MATCH : MISMATCH);
                 byte op = DIAG;
                 int ins = prev[pk] + GAP;
                 if (ins > best) {
@@ -114,12 +126,6 @@ public final class WrapAligner {
                 if (best > rowMax) {
                     rowMax = best;
                     rowMaxK = k;
-                }
-                ph += dir;
-                if (ph == p) {
-                    ph = 0;
-                } else if (ph < 0) {
-                    ph = p - 1;
                 }
             }
             int[] sw = prev;
@@ -166,6 +172,25 @@ public final class WrapAligner {
                 j--;
             }
         }
+    }
+
+    private void unroll(byte[] motif, int p, int phase, int dir, int need) {
+        int n = Math.max(need + 64, 2 * tmplLen);
+        if (tmpl.length < n) {
+            tmpl = Arrays.copyOf(tmpl, n);
+        }
+        // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]
+        int ph = Math.floorMod(phase + dir * (Math.max(tmplLen, 1) - 1), p);
+        for (int x = Math.max(tmplLen, 1); x < n; x++) {
+            tmpl[x] = motif[ph];
+            ph += dir;
+            if (ph == p) {
+                ph = 0;
+            } else if (ph < 0) {
+                ph = p - 1;
+            }
+        }
+        tmplLen = n;
     }
 
     /** Receives the columns of a traced alignment. */
