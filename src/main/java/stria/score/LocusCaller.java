@@ -53,8 +53,6 @@ public final class LocusCaller {
     public static final int SEED_MAX_PERIOD = 12;
     /** Bases beyond one copy an exact run needs to seed: 6 keeps random DNA to a few seeds per kb. */
     public static final int SEED_EXTRA = 6;
-    static final boolean DEBUG = Boolean.getBoolean("stria.debug");
-    public static long[] STAT = new long[8];
 
     private final ScoreSettings settings;
     private final WrapAligner aligner = new WrapAligner();
@@ -126,11 +124,8 @@ public final class LocusCaller {
                 all.add(s, e, seeds.period(i));
             }
         }
-        long T0 = System.nanoTime();
         recurrence.find(seq, length, lo, hi, maxP, all);
-        long T1 = System.nanoTime();
         all.sort();
-        long T2 = System.nanoTime();
         int n = all.size();
 
         // union of reaches: components separated by quiet points
@@ -203,15 +198,9 @@ public final class LocusCaller {
                 continue;
             }
             int ci = componentAt(compStart, compEnd, comps, s);
-            long r0 = WrapAligner.ROWS;
             Cand cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
-            STAT[0]++; STAT[1] += WrapAligner.ROWS - r0; if (WrapAligner.ROWS - r0 > 20000 && cand != null) System.err.println("big " + s + "/" + p + " rows " + (WrapAligner.ROWS - r0) + " -> " + cand.start + "-" + cand.end + "/" + cand.period); if (p < 7) { STAT[6]++; STAT[7] += WrapAligner.ROWS - r0; }
             if (cand == null) {
                 continue;
-            }
-            if (DEBUG) {
-                System.err.println("cand seed " + s + "-" + e + "/" + p + " -> " + cand.start + "-" + cand.end + "/" + cand.period
-                        + " score " + cand.score + " purity " + cand.purity());
             }
             mark(covS, covE, p, cand);
             mark(covS, covE, cand.period, cand);
@@ -225,9 +214,7 @@ public final class LocusCaller {
             // off or a multiple; the period the locus' bases agree with best gets its own candidate
             int q = otherPeriod(seq, cand.start, cand.end, cand.period);
             if (q > 0) {
-                long r1 = WrapAligner.ROWS;
                 Cand alt = candidate(seq, cand.start, q, compStart[ci], compEnd[ci]);
-                STAT[2]++; STAT[3] += WrapAligner.ROWS - r1;
                 if (alt != null) {
                     mark(covS, covE, alt.period, alt);
                     if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
@@ -239,10 +226,7 @@ public final class LocusCaller {
                 }
             }
         }
-        long T3 = System.nanoTime();
         List<Cand> won = resolve(seq, cands);
-        long T4 = System.nanoTime();
-        if (DEBUG) System.err.printf("rec %.3f sort %.3f cand %.3f resolve %.3f n=%d%n", (T1-T0)/1e9, (T2-T1)/1e9, (T3-T2)/1e9, (T4-T3)/1e9, n);
         List<Locus> out = new ArrayList<>();
         for (Cand k : won) {
             if (k.start >= from && k.start < to) {
@@ -405,9 +389,7 @@ public final class LocusCaller {
             if (next == null || Arrays.equals(next, k.motif)) {
                 break;
             }
-            long r2 = WrapAligner.ROWS;
             Cand r = align(seq, a, next, next.length, phaseMap[0], ce - a);
-            STAT[4]++; STAT[5] += WrapAligner.ROWS - r2;
             if (r == null || r.score <= k.score) {
                 break;
             }

@@ -42,7 +42,6 @@ public final class WrapAligner {
     private int bestI;
     private int bestJ;
     private int bestScore;
-    public static long ROWS, CALLS;
 
     /** Text rows consumed by the best alignment. */
     public int bestI() {
@@ -81,9 +80,7 @@ public final class WrapAligner {
         bestJ = 0;
         bestScore = 0;
         int pos = pos0;
-        CALLS++;
         for (int i = 1; i <= cap; i++, pos += dir) {
-            ROWS++;
             int t = Bases.code(seq[pos]);
             if (t < 0 || t > 3) {
                 break;
