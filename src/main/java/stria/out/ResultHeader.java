@@ -1,0 +1,129 @@
+package stria.out;
+
+import java.nio.charset.StandardCharsets;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.ArrayList;
+import java.util.HexFormat;
+import java.util.List;
+
+/**
+ * The {@code #} lines that open every BED and TSV result: tool version, command line, settings, a
+ * fingerprint of the input (names and lengths of all contigs), the contigs, and for split runs the shard.
+ * A result file thereby says how it was made, and a merge can check that its parts belong together.
+ *
+ * @param version     tool version
+ * @param command     the command line as typed (informational; differs between shards)
+ * @param settings    every option that changes the data lines, as {@code key=value} words
+ * @param contigs     all contigs of the input in order
+ * @param shard       {@code K/N} for the output of one shard, otherwise null
+ * @param regions     regions the scan was limited to (0-based, end exclusive), empty for whole genomes
+ */
+public record ResultHeader(String version, String command, String settings, List<Contig> contigs, String shard,
+                           List<Span> regions) {
+
+    public record Contig(String name, long length) {
+    }
+
+    public record Span(String contig, long start, long end) {
+    }
+
+    public static final String PREFIX_SETTINGS = "#settings: ";
+    public static final String PREFIX_INPUT = "#input: ";
+    public static final String PREFIX_COMMAND = "#command: ";
+    public static final String PREFIX_CONTIG = "#contig: ";
+    public static final String PREFIX_SHARD = "#shard: ";
+    public static final String PREFIX_REGION = "#region: ";
+    public static final String PREFIX_TOOL = "#stria ";
+
+    public long totalBases() {
+        long t = 0;
+        for (Contig c : contigs) {
+            t += c.length();
+        }
+        return t;
+    }
+
+    /** First 16 hex digits of SHA-256 over {@code name\tlength\n} of every contig, in order. */
+    public String fingerprint() {
+        return fingerprint(contigs);
+    }
+
+    public static String fingerprint(List<Contig> contigs) {
+        try {
+            MessageDigest md = MessageDigest.getInstance("SHA-256");
+            for (Contig c : contigs) {
+                md.update((c.name() + "\t" + c.length() + "\n").getBytes(StandardCharsets.UTF_8));
+            }
+            return HexFormat.of().formatHex(md.digest()).substring(0, 16);
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** The line that identifies the input; equal lines mean the same genome layout. */
+    public String inputLine() {
+        return PREFIX_INPUT + "fingerprint=" + fingerprint() + " contigs=" + contigs.size() + " bases=" + totalBases();
+    }
+
+    public List<String> lines() {
+        List<String> out = new ArrayList<>();
+        out.add(PREFIX_TOOL + version);
+        out.add(PREFIX_COMMAND + command);
+        out.add(PREFIX_SETTINGS + settings);
+        out.add(inputLine());
+        for (Contig c : contigs) {
+            out.add(PREFIX_CONTIG + c.name() + " " + c.length());
+        }
+        for (Span r : regions) {
+            out.add(PREFIX_REGION + r.contig() + " " + r.start() + " " + r.end());
+        }
+        if (shard != null) {
+            out.add(PREFIX_SHARD + shard);
+        }
+        return out;
+    }
+
+    /**
+     * Parses the {@code #} lines of a result (lines not starting with {@code #} are ignored). Returns null
+     * when there is no {@code #stria} line. The fingerprint is recomputed from the contig lines; a file whose
+     * {@code #input} line disagrees is reported through {@link #inputLineMatches}.
+     */
+    public static ResultHeader parse(List<String> lines) {
+        String version = null, command = "", settings = null, shard = null;
+        List<Contig> contigs = new ArrayList<>();
+        List<Span> regions = new ArrayList<>();
+        for (String l : lines) {
+            if (l.startsWith(PREFIX_TOOL)) {
+                version = l.substring(PREFIX_TOOL.length()).trim();
+            } else if (l.startsWith(PREFIX_COMMAND)) {
+                command = l.substring(PREFIX_COMMAND.length());
+            } else if (l.startsWith(PREFIX_SETTINGS)) {
+                settings = l.substring(PREFIX_SETTINGS.length());
+            } else if (l.startsWith(PREFIX_CONTIG)) {
+                String[] f = l.substring(PREFIX_CONTIG.length()).split(" ");
+                contigs.add(new Contig(f[0], Long.parseLong(f[1])));
+            } else if (l.startsWith(PREFIX_REGION)) {
+                String[] f = l.substring(PREFIX_REGION.length()).split(" ");
+                regions.add(new Span(f[0], Long.parseLong(f[1]), Long.parseLong(f[2])));
+            } else if (l.startsWith(PREFIX_SHARD)) {
+                shard = l.substring(PREFIX_SHARD.length()).trim();
+            }
+        }
+        if (version == null) {
+            return null;
+        }
+        return new ResultHeader(version, command, settings == null ? "" : settings, List.copyOf(contigs), shard,
+                List.copyOf(regions));
+    }
+
+    /** Whether the {@code #input} line among {@code lines} agrees with the contig lines. */
+    public boolean inputLineMatches(List<String> lines) {
+        for (String l : lines) {
+            if (l.startsWith(PREFIX_INPUT)) {
+                return l.equals(inputLine());
+            }
+        }
+        return false;
+    }
+}
