@@ -540,8 +540,10 @@ final class Charts {
         }
         double x0 = Math.floor(Math.log10(minLen));
         double x1 = Math.max(x0 + 1, Math.ceil(Math.log10(maxLen) * 10) / 10 + 0.05);
-        int nx = 48;
-        double dx = (x1 - x0) / nx;
+        // a cell is at least one base wide at the short end, else short loci leave empty stripes between
+        // the integer lengths
+        double dx = Math.max((x1 - x0) / 48, Math.log10(1 + 1 / Math.pow(10, x0)));
+        int nx = (int) Math.ceil((x1 - x0) / dx - 1e-9);
         double y0 = Math.max(0, Math.floor(minPurity * 20) / 20);
         double dy = (1 - y0) <= 0.3 ? 0.01 : 0.02;
         int ny = (int) Math.round((1 - y0) / dy) + 1; // the top bin holds purity 1 exactly
