@@ -1,2 +1,81 @@
 package stria.cli;
-public final class Main { public static void main(String[] a) { System.out.println("stub"); } }
+
+import java.io.PrintWriter;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import stria.StriaException;
+
+/** Entry point: parses the command line once and maps failures to exit codes (1 input/IO, 2 usage). */
+@Command(name = "stria", mixinStandardHelpOptions = true, versionProvider = Main.Version.class,
+        description = {
+            "Finds the tandem repeats of assembled genomes, from homopolymers and microsatellites to satellite "
+                + "arrays, perfect and imperfect, and writes them as BED and TSV.",
+            "",
+            "Results are research-grade. Repeat-expansion loci matter clinically: stria is not a diagnostic "
+                + "test; defer to validated assays, licensed practice and local rules."},
+        subcommands = {ScanCommand.class, MergeCommand.class, PartitionCommand.class, ReportCommand.class,
+            CommandLine.HelpCommand.class})
+public final class Main implements Runnable {
+    public static final String VERSION = versionString();
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    static {
+        // the report draws charts with AWT classes; no display is ever needed
+        System.setProperty("java.awt.headless", "true");
+    }
+
+    public static void main(String[] args) {
+        System.exit(run(args));
+    }
+
+    /** Runs the command line and returns the exit code (used by tests too). */
+    public static int run(String... args) {
+        CommandLine cl = commandLine();
+        return cl.execute(args);
+    }
+
+    public static CommandLine commandLine() {
+        CommandLine cl = new CommandLine(new Main());
+        cl.setExecutionExceptionHandler(Main::onError);
+        cl.setCaseInsensitiveEnumValuesAllowed(true);
+        cl.setUsageHelpLongOptionsMaxWidth(28);
+        return cl;
+    }
+
+    @Override
+    public void run() {
+        throw new CommandLine.ParameterException(spec.commandLine(), "missing command: choose one of "
+                + String.join(", ", spec.subcommands().keySet()));
+    }
+
+    private static int onError(Exception ex, CommandLine cl, CommandLine.ParseResult parsed) {
+        boolean debug = Boolean.getBoolean("stria.debug") || parsed.originalArgs().contains("--debug");
+        PrintWriter err = cl.getErr();
+        if (ex instanceof StriaException) {
+            err.println("stria: " + ex.getMessage());
+        } else if (ex.getCause() instanceof OutOfMemoryError) {
+            err.println("stria: out of memory; give the JVM more with STRIA_JAVA_OPTS=-Xmx..., or fewer --threads");
+        } else {
+            err.println("stria: internal error: " + ex + (debug ? "" : " (run with --debug for details)"));
+        }
+        if (debug) {
+            ex.printStackTrace(err);
+        }
+        err.flush();
+        return 1;
+    }
+
+    private static String versionString() {
+        String v = Main.class.getPackage().getImplementationVersion();
+        return v == null ? "0.1.0-dev" : v;
+    }
+
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            return new String[] {"stria " + VERSION, "Java " + System.getProperty("java.version")};
+        }
+    }
+}

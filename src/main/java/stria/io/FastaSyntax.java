@@ -1,0 +1,43 @@
+package stria.io;
+
+/** Byte classes and wording shared by the pre-pass, the index check and the sequence loader. */
+final class FastaSyntax {
+    /** True for the bytes a sequence line may hold: the IUPAC nucleotide letters, either case. */
+    static final boolean[] LETTER = new boolean[256];
+    /** Longest record name accepted; a longer one means the file is not what it claims to be. */
+    static final int MAX_NAME = 1 << 16;
+
+    static {
+        for (int b = 0; b < 256; b++) {
+            LETTER[b] = Bases.code((byte) b) != Bases.INVALID;
+        }
+    }
+
+    private FastaSyntax() {
+    }
+
+    /** Control bytes never appear in FASTA text; seeing one means binary data. */
+    static boolean isControl(int b) {
+        return (b < 0x20 && b != '\t' && b != '\n' && b != '\r' && b != 0x0B && b != 0x0C) || b == 0x7F;
+    }
+
+    /** A byte as a reader should see it in a message: the letter itself or its hex code. */
+    static String describe(int b) {
+        b &= 0xFF;
+        if (b == ' ') {
+            return "a space";
+        }
+        if (b == '\t') {
+            return "a tab";
+        }
+        if (b > 0x20 && b < 0x7F) {
+            return "'" + (char) b + "'";
+        }
+        return String.format("byte 0x%02X", b);
+    }
+
+    static String notALetter(String display, String record, long line, int b) {
+        return display + ": record " + record + ", line " + line + ": " + describe(b)
+                + " is not a nucleotide letter (IUPAC codes ACGTNRYSWKMBDHV only)";
+    }
+}

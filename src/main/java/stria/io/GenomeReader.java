@@ -1,0 +1,237 @@
+package stria.io;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.function.Consumer;
+
+import htsjdk.samtools.SAMException;
+import htsjdk.samtools.util.BlockCompressedInputStream;
+import htsjdk.samtools.util.GZIIndex;
+import stria.StriaException;
+
+/**
+ * A genome file (FASTA: plain, gzip or BGZF, or standard input) as a list of contigs whose sequences
+ * can be loaded one at a time, each into an array of exactly its length.
+ *
+ * <p>Decompression and the index formats come from htsjdk. The records themselves are parsed here,
+ * byte by byte, because the FASTA readers of the library grow their buffers while reading (a large
+ * chromosome would need three times its size) and do not report where a bad letter is.
+ *
+ * <p>Everything is checked when the file is opened (a pre-pass, or the .fai when one matches the file)
+ * and every byte again when a sequence is loaded; all problems surface as {@link StriaException} with
+ * the file named. Not thread-safe: one reader feeds one pipeline.
+ */
+public final class GenomeReader implements AutoCloseable {
+    private final String display;
+    private final Path path;
+    private final Path spooled;
+    private final InputCursor cursor;
+    private final RecordTable table;
+    private final int[] record;
+    private final List<ContigInfo> contigs;
+    private final String mismatch;
+
+    private GenomeReader(String display, Path path, Path spooled, InputCursor cursor, RecordTable table,
+                         boolean fromIndex, Consumer<String> warn) {
+        this.display = display;
+        this.path = path;
+        this.spooled = spooled;
+        this.cursor = cursor;
+        this.table = table;
+        this.mismatch = fromIndex
+                ? display + ".fai does not match " + display + "; rebuild it (samtools faidx) or delete it"
+                : display + " changed while being read";
+        Map<String, Long> seen = new HashMap<>();
+        List<ContigInfo> list = new ArrayList<>();
+        int[] rec = new int[table.size()];
+        int empty = 0;
+        String firstEmpty = null;
+        for (int i = 0; i < table.size(); i++) {
+            String name = table.names.get(i);
+            Long before = seen.putIfAbsent(name, table.headerLine(i));
+            if (before != null) {
+                throw new StriaException(display + ": duplicate record name " + name
+                        + (before > 0 ? " (lines " + before + " and " + table.headerLine(i) + ")" : ""));
+            }
+            long length = table.length(i);
+            if (length == 0) {
+                if (empty++ == 0) {
+                    firstEmpty = name;
+                }
+                continue;
+            }
+            if (length > Integer.MAX_VALUE - 8) {
+                throw new StriaException(display + ": record " + name + " has " + length
+                        + " bases; records longer than 2,147,483,639 bases are not supported");
+            }
+            rec[list.size()] = i;
+            list.add(new ContigInfo(list.size(), name, (int) length));
+        }
+        if (list.isEmpty()) {
+            throw new StriaException(display + ": no record has any sequence");
+        }
+        if (empty > 0) {
+            warn.accept(display + ": skipped " + (empty == 1 ? "1 record" : empty + " records")
+                    + " with no sequence (" + (empty == 1 ? "" : "first: ") + firstEmpty + ")");
+        }
+        this.record = rec;
+        this.contigs = Collections.unmodifiableList(list);
+    }
+
+    /**
+     * Opens a FASTA file, plain, gzip or BGZF; {@code "-"} reads standard input, which is first copied to
+     * a temporary file (deleted on close and at exit) so that it can be read twice.
+     *
+     * @param warn receives one-line warnings, such as records skipped for having no sequence
+     * @throws StriaException with a one-line message naming the file on anything wrong with it
+     */
+    public static GenomeReader open(String pathOrDash, Consumer<String> warn) {
+        boolean stdin = "-".equals(pathOrDash);
+        String display = stdin ? "<stdin>" : pathOrDash;
+        Path spooled = stdin ? spoolStandardInput() : null;
+        Path path = stdin ? spooled : pathOf(pathOrDash);
+        InputCursor cursor = null;
+        try {
+            checkFile(path, display);
+            Compression kind;
+            try {
+                kind = Compression.detect(path);
+            } catch (IOException e) {
+                throw new StriaException(display + ": cannot read (" + InputCursor.oneLine(e) + ")", e);
+            }
+            GZIIndex gzi = null;
+            if (kind == Compression.BGZF) {
+                checkTermination(path, display, warn);
+                Path gziPath = IndexFiles.gziOf(path);
+                if (!stdin && Files.isRegularFile(gziPath)) {
+                    gzi = IndexFiles.loadGzi(path, gziPath, display);
+                }
+            }
+            cursor = new InputCursor(path, kind, gzi, display);
+            Path fai = IndexFiles.faiOf(path);
+            boolean useFai = !stdin && kind != Compression.GZIP && Files.isRegularFile(fai);
+            RecordTable table = useFai ? IndexFiles.fromFai(fai, cursor, display) : FastaPrePass.scan(cursor, display);
+            return new GenomeReader(display, path, spooled, cursor, table, useFai, warn);
+        } catch (RuntimeException e) {
+            if (cursor != null) {
+                cursor.close();
+            }
+            deleteQuietly(spooled);
+            throw e;
+        }
+    }
+
+    /** The file as the user named it, or {@code <stdin>}: the form every message uses. */
+    public String displayName() {
+        return display;
+    }
+
+    /** Every record that has sequence, in file order. */
+    public List<ContigInfo> contigs() {
+        return contigs;
+    }
+
+    /**
+     * The whole sequence of a contig: its bytes as in the file without line ends, case kept. Cheapest in
+     * file order; any order works.
+     *
+     * @throws StriaException when a byte is not an IUPAC nucleotide letter, naming record, line and letter
+     */
+    public byte[] sequence(ContigInfo c) {
+        if (c.index() >= contigs.size() || !contigs.get(c.index()).equals(c)) {
+            throw new IllegalArgumentException("contig " + c + " is not from " + display);
+        }
+        int i = record[c.index()];
+        return SequenceLoader.load(cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
+                mismatch);
+    }
+
+    @Override
+    public void close() {
+        cursor.close();
+        deleteQuietly(spooled);
+    }
+
+    /** For tests: the file actually read (the spooled copy for standard input). */
+    Path path() {
+        return path;
+    }
+
+    private static Path pathOf(String text) {
+        if (text == null || text.isEmpty()) {
+            throw new StriaException("no genome file given");
+        }
+        try {
+            return Path.of(text);
+        } catch (InvalidPathException e) {
+            throw new StriaException(text + ": not a valid file name", e);
+        }
+    }
+
+    private static void checkFile(Path path, String display) {
+        if (Files.isDirectory(path)) {
+            throw new StriaException(display + ": is a directory, not a FASTA file");
+        }
+        if (!Files.exists(path)) {
+            throw new StriaException(display + ": no such file");
+        }
+        if (!Files.isReadable(path)) {
+            throw new StriaException(display + ": cannot read (permission denied)");
+        }
+        try {
+            if (Files.size(path) == 0) {
+                throw new StriaException(display + ": file is empty");
+            }
+        } catch (IOException e) {
+            throw new StriaException(display + ": cannot read (" + InputCursor.oneLine(e) + ")", e);
+        }
+    }
+
+    private static void checkTermination(Path path, String display, Consumer<String> warn) {
+        BlockCompressedInputStream.FileTermination end;
+        try {
+            end = BlockCompressedInputStream.checkTermination(path);
+        } catch (IOException | SAMException e) {
+            throw new StriaException(display + ": truncated or corrupt BGZF data (" + InputCursor.oneLine(e) + ")", e);
+        }
+        switch (end) {
+            case DEFECTIVE -> throw new StriaException(display + ": truncated or corrupt BGZF data (the last block is incomplete)");
+            case HAS_HEALTHY_LAST_BLOCK -> warn.accept(display + ": BGZF file has no end-of-file marker; it may be truncated");
+            default -> { }
+        }
+    }
+
+    private static Path spoolStandardInput() {
+        Path tmp = null;
+        try {
+            tmp = Files.createTempFile("stria-stdin-", ".fa");
+            tmp.toFile().deleteOnExit();
+            InputStream in = System.in;
+            Files.copy(in, tmp, StandardCopyOption.REPLACE_EXISTING);
+            return tmp;
+        } catch (IOException e) {
+            deleteQuietly(tmp);
+            throw new StriaException("<stdin>: cannot copy standard input to a temporary file ("
+                    + InputCursor.oneLine(e) + ")", e);
+        }
+    }
+
+    private static void deleteQuietly(Path p) {
+        if (p != null) {
+            try {
+                Files.deleteIfExists(p);
+            } catch (IOException e) {
+                // deleteOnExit still covers it
+            }
+        }
+    }
+}

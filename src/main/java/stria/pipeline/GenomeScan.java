@@ -1,0 +1,352 @@
+package stria.pipeline;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.BlockingQueue;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.Semaphore;
+import java.util.concurrent.ThreadFactory;
+import java.util.concurrent.atomic.AtomicInteger;
+import stria.StriaException;
+import stria.io.ContigInfo;
+import stria.repeats.RunList;
+import stria.score.ExactLocus;
+import stria.score.Locus;
+import stria.score.LocusCaller;
+import stria.score.NeedMoreContextException;
+import stria.score.ScoreSettings;
+
+/**
+ * Scans a list of units (whole contigs, regions or shard pieces) in order and hands their loci, in order, to
+ * an {@link Output}.
+ *
+ * <p>Threads: a reader thread loads contigs and queues their windows on a fixed pool; the calling thread
+ * stitches the windows of each unit in order and scores them, again on the pool. At most
+ * {@code 2 threads + 4} windows are in flight, so memory depends on window length and thread count, plus
+ * the contigs being worked on. Every decision that shapes the output depends only on the sequence, never
+ * on which thread or window did the work, so the bytes written are the same for any thread count and
+ * window length.
+ */
+public final class GenomeScan {
+    /** Receives the results, unit by unit, in order. */
+    public interface Output {
+        void beginUnit(ScanUnit unit, byte[] seq);
+
+        void locus(ScanUnit unit, Locus locus);
+
+        void endUnit(ScanUnit unit, byte[] seq);
+    }
+
+    /** Length of the stretches scored as separate tasks; any value gives the same output. */
+    static final int SCORE_CHUNK = 1 << 21;
+
+    private final ScanSettings settings;
+    private final ScoreSettings filters;
+    private final LocusCaller caller;
+    private final Progress progress;
+    private final long initialMargin;
+
+    public GenomeScan(ScanSettings settings, Progress progress) {
+        this(settings, progress, 65_536 + 8L * settings.filters().maxPeriod());
+    }
+
+    /** With the context first computed around a unit that is not a whole contig (tests force it small). */
+    GenomeScan(ScanSettings settings, Progress progress, long initialMargin) {
+        this.initialMargin = initialMargin;
+        this.settings = settings;
+        this.filters = settings.filters();
+        this.caller = new LocusCaller(filters);
+        this.progress = progress;
+    }
+
+    /** Total bases that will be reported on, for progress. */
+    public static long totalBases(List<ScanUnit> units) {
+        long t = 0;
+        for (ScanUnit u : units) {
+            t += u.to() - u.from();
+        }
+        return t;
+    }
+
+    private static final class Work {
+        final ScanUnit unit;
+        final byte[] seq;
+        final WindowPlan plan;
+        final CompletableFuture<WindowRuns>[] windows;
+        final Throwable error;
+
+        @SuppressWarnings("unchecked")
+        Work(ScanUnit unit, byte[] seq, WindowPlan plan) {
+            this.unit = unit;
+            this.seq = seq;
+            this.plan = plan;
+            this.windows = new CompletableFuture[plan.count()];
+            for (int k = 0; k < windows.length; k++) {
+                windows[k] = new CompletableFuture<>();
+            }
+            this.error = null;
+        }
+
+        Work(Throwable error) {
+            this.unit = null;
+            this.seq = null;
+            this.plan = null;
+            this.windows = null;
+            this.error = error;
+        }
+    }
+
+    private static final Work END = new Work(null);
+
+    public void run(List<ScanUnit> units, Output out) {
+        int threads = settings.threads();
+        AtomicInteger n = new AtomicInteger();
+        ThreadFactory tf = r -> {
+            Thread t = new Thread(r, "stria-worker-" + n.incrementAndGet());
+            t.setDaemon(true);
+            return t;
+        };
+        ExecutorService pool = Executors.newFixedThreadPool(threads, tf);
+        Semaphore permits = new Semaphore(2 * threads + 4);
+        BlockingQueue<Work> queue = new ArrayBlockingQueue<>(2 * threads + 4);
+        Thread reader = new Thread(() -> produce(units, pool, permits, queue), "stria-reader");
+        reader.setDaemon(true);
+        reader.start();
+        try {
+            while (true) {
+                Work w = queue.take();
+                if (w == END) {
+                    break;
+                }
+                if (w.error != null) {
+                    rethrow(w.error);
+                }
+                consume(w, pool, permits, out);
+            }
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new StriaException("interrupted");
+        } finally {
+            reader.interrupt();
+            pool.shutdownNow();
+        }
+    }
+
+    private void produce(List<ScanUnit> units, ExecutorService pool, Semaphore permits, BlockingQueue<Work> queue) {
+        try {
+            ScanUnit previous = null;
+            byte[] seq = null;
+            int maxPeriod = filters.maxPeriod();
+            for (ScanUnit u : units) {
+                if (previous == null || previous.source() != u.source() || previous.contig() != u.contig()) {
+                    seq = u.source().sequence(u.contig());
+                }
+                previous = u;
+                int[] range = initialRange(u);
+                Work w = new Work(u, seq, new WindowPlan(range[0], range[1], settings.window(), maxPeriod));
+                queue.put(w);
+                byte[] s = seq;
+                for (int k = 0; k < w.windows.length; k++) {
+                    permits.acquire();
+                    int ws = w.plan.start(k), we = w.plan.end(k);
+                    CompletableFuture<WindowRuns> f = w.windows[k];
+                    pool.execute(() -> {
+                        try {
+                            f.complete(WindowRuns.compute(s, ws, we, maxPeriod));
+                        } catch (Throwable t) {
+                            f.completeExceptionally(t);
+                        }
+                    });
+                }
+            }
+            queue.put(END);
+        } catch (InterruptedException e) {
+            // the consumer stopped; nothing more to do
+        } catch (Throwable t) {
+            try {
+                queue.put(new Work(t));
+            } catch (InterruptedException ignored) {
+                // consumer gone
+            }
+        }
+    }
+
+    /** Context around a unit that is not a whole contig: runs are computed on [lo, hi). */
+    private int[] initialRange(ScanUnit u) {
+        if (u.wholeContig()) {
+            return new int[] {0, u.contig().length()};
+        }
+        return widen(u, initialMargin);
+    }
+
+    /**
+     * Runs that start within {@code 2 maxPeriod} of the end of the known stretch may be too short there to be
+     * seen at all, so the margin never goes below that.
+     */
+    private int[] widen(ScanUnit u, long margin) {
+        margin = Math.max(margin, 2L * filters.maxPeriod() + 2);
+        long lo = Math.max(0, u.from() - margin);
+        long hi = Math.min(u.contig().length(), u.to() + margin);
+        return new int[] {(int) lo, (int) hi};
+    }
+
+    private void consume(Work w, ExecutorService pool, Semaphore permits, Output out) throws InterruptedException {
+        ScanUnit u = w.unit;
+        out.beginUnit(u, w.seq);
+        WindowPlan plan = w.plan;
+        boolean streamExact = settings.exact() && u.wholeContig();
+        RunList kept = new RunList();
+        Stitcher.Sink sink;
+        if (streamExact) {
+            sink = (s, e, p) -> {
+                if (passes(s, e, p)) {
+                    out.locus(u, ExactLocus.of(w.seq, s, e, p));
+                }
+            };
+        } else {
+            sink = collector(u, plan, kept);
+        }
+        Stitcher st = new Stitcher(plan, sink);
+        for (int k = 0; k < plan.count(); k++) {
+            WindowRuns r = get(w.windows[k]);
+            w.windows[k] = null;
+            permits.release();
+            st.accept(k, r);
+            long a = Math.max(plan.ownedFrom(k), u.from());
+            long b = Math.min(plan.ownedTo(k), u.to());
+            if (b > a && settings.exact()) {
+                progress.add(b - a);
+            }
+        }
+        st.finish();
+        if (!streamExact) {
+            long margin = initialMargin;
+            while (true) {
+                List<Locus> loci = settings.exact() ? exactFromRange(u, w.seq, plan, kept)
+                        : score(u, w.seq, plan, kept, pool);
+                if (loci != null) {
+                    for (Locus l : loci) {
+                        out.locus(u, l);
+                    }
+                    break;
+                }
+                // the stretch of known runs was too short to decide: widen it and compute again
+                margin *= 4;
+                int[] range = widen(u, margin);
+                plan = new WindowPlan(range[0], range[1], settings.window(), filters.maxPeriod());
+                kept = new RunList();
+                runRange(w.seq, plan, collector(u, plan, kept), pool);
+            }
+        }
+        out.endUnit(u, w.seq);
+    }
+
+    private Stitcher.Sink collector(ScanUnit u, WindowPlan plan, RunList kept) {
+        if (settings.exact()) {
+            return (s, e, p) -> {
+                if (s >= u.from() && s < u.to()) {
+                    kept.add(s, e, p);
+                }
+            };
+        }
+        return (s, e, p) -> {
+            if (caller.isSeed(s, e, p)) {
+                kept.add(s, e, p);
+            }
+        };
+    }
+
+    /** Exact runs of a stretch, or null when one of them may continue past the known stretch. */
+    private List<Locus> exactFromRange(ScanUnit u, byte[] seq, WindowPlan plan, RunList runs) {
+        int len = u.contig().length();
+        List<Locus> loci = new ArrayList<>();
+        for (int i = 0; i < runs.size(); i++) {
+            int s = runs.start(i), e = runs.end(i), p = runs.period(i);
+            if ((e == plan.hi() && plan.hi() < len) || (s == plan.lo() && plan.lo() > 0)) {
+                return null;
+            }
+            if (passes(s, e, p)) {
+                loci.add(ExactLocus.of(seq, s, e, p));
+            }
+        }
+        return loci;
+    }
+
+    /** Imperfect loci of a unit, scored in chunks on the pool; null when more context is needed. */
+    private List<Locus> score(ScanUnit u, byte[] seq, WindowPlan plan, RunList seeds, ExecutorService pool)
+            throws InterruptedException {
+        int len = u.contig().length();
+        List<Future<List<Locus>>> parts = new ArrayList<>();
+        List<Integer> sizes = new ArrayList<>();
+        for (long a = u.from(); a < u.to(); a += SCORE_CHUNK) {
+            int from = (int) a;
+            int to = (int) Math.min(u.to(), a + SCORE_CHUNK);
+            parts.add(pool.submit(() -> caller.call(seq, len, seeds, plan.lo(), plan.hi(), from, to)));
+            sizes.add(to - from);
+        }
+        List<Locus> all = new ArrayList<>();
+        boolean more = false;
+        for (int i = 0; i < parts.size(); i++) {
+            try {
+                all.addAll(parts.get(i).get());
+            } catch (ExecutionException e) {
+                if (e.getCause() instanceof NeedMoreContextException && !u.wholeContig()) {
+                    more = true;
+                    continue;
+                }
+                rethrow(e.getCause());
+            }
+            progress.add(sizes.get(i));
+        }
+        return more ? null : all;
+    }
+
+    private void runRange(byte[] seq, WindowPlan plan, Stitcher.Sink sink, ExecutorService pool)
+            throws InterruptedException {
+        List<Future<WindowRuns>> fs = new ArrayList<>();
+        int maxPeriod = filters.maxPeriod();
+        for (int k = 0; k < plan.count(); k++) {
+            int ws = plan.start(k), we = plan.end(k);
+            fs.add(pool.submit(() -> WindowRuns.compute(seq, ws, we, maxPeriod)));
+        }
+        Stitcher st = new Stitcher(plan, sink);
+        for (int k = 0; k < fs.size(); k++) {
+            try {
+                st.accept(k, fs.get(k).get());
+            } catch (ExecutionException e) {
+                rethrow(e.getCause());
+            }
+        }
+        st.finish();
+    }
+
+    private boolean passes(int s, int e, int p) {
+        int len = e - s;
+        return p >= filters.minPeriod() && p <= filters.maxPeriod() && len >= filters.minLength()
+                && len >= filters.minCopies() * p - 1e-9;
+    }
+
+    private static WindowRuns get(CompletableFuture<WindowRuns> f) throws InterruptedException {
+        try {
+            return f.get();
+        } catch (ExecutionException e) {
+            rethrow(e.getCause());
+            return null;
+        }
+    }
+
+    private static void rethrow(Throwable t) {
+        if (t instanceof RuntimeException r) {
+            throw r;
+        }
+        if (t instanceof Error err) {
+            throw err;
+        }
+        throw new IllegalStateException(t);
+    }
+}

@@ -1,0 +1,293 @@
+package stria.shard;
+
+import htsjdk.samtools.util.BlockCompressedInputStream;
+import java.io.BufferedInputStream;
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.io.OutputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.zip.GZIPInputStream;
+import stria.StriaException;
+import stria.out.AtomicOutputs;
+import stria.out.ResultHeader;
+
+/**
+ * Joins the results of the shards of one split run into the result a single run would have written.
+ *
+ * <p>Because shards own consecutive stretches of the genome in order (see {@link Partition}), the data
+ * lines of shards 1..n, each sorted, concatenate to sorted output; nothing is re-sorted or re-parsed, the
+ * lines are copied as bytes. What needs care is the set itself: a missing, repeated or foreign shard would
+ * silently lose or duplicate loci, so the headers are checked against each other before any data is
+ * written.
+ */
+public final class ShardMerge {
+
+    public enum Format {
+        BED, TSV
+    }
+
+    /** The first line of a TSV result after the {@code #} lines. */
+    private static final String TSV_COLUMNS_START = "chrom\t";
+
+    /** What the header of one shard result says. */
+    record Part(String file, ResultHeader header, String inputLine, String columns, Format format, int k, int n) {
+    }
+
+    private final List<Part> parts;
+    private final Format format;
+
+    private ShardMerge(List<Part> parts, Format format) {
+        this.parts = parts;
+        this.format = format;
+    }
+
+    /**
+     * Reads the headers of {@code files} and checks that they are the complete shard set of one run in
+     * {@code format}; throws a {@link StriaException} naming the offending files otherwise.
+     */
+    public static ShardMerge check(List<String> files, Format format) {
+        if (files.isEmpty()) {
+            throw new StriaException("no shard results given");
+        }
+        List<Part> parts = new ArrayList<>();
+        for (String f : files) {
+            parts.add(readPart(f));
+        }
+        Part first = parts.get(0);
+        for (Part p : parts) {
+            if (p.format != first.format) {
+                throw new StriaException(first.file + " is " + first.format.name() + " but " + p.file + " is "
+                        + p.format.name() + ": merge the results of one format at a time");
+            }
+        }
+        if (first.format != format) {
+            throw new StriaException(first.file + " is a " + first.format.name() + " result, not "
+                    + format.name() + ": merge it with --" + first.format.name().toLowerCase(java.util.Locale.ROOT));
+        }
+        for (Part p : parts) {
+            if (p.n != first.n) {
+                throw new StriaException(first.file + " is shard " + first.k + "/" + first.n + " but " + p.file
+                        + " is shard " + p.k + "/" + p.n + ": they come from runs split differently");
+            }
+            if (!p.inputLine.equals(first.inputLine)) {
+                throw new StriaException(first.file + " and " + p.file + " were made from different inputs ("
+                        + first.inputLine.substring(1) + " vs " + p.inputLine.substring(1) + ")");
+            }
+            if (!p.header.settings().equals(first.header.settings())) {
+                throw new StriaException(first.file + " and " + p.file + " were made with different settings ("
+                        + first.header.settings() + " vs " + p.header.settings() + ")");
+            }
+            if (!p.header.regions().equals(first.header.regions())) {
+                throw new StriaException(first.file + " and " + p.file + " scanned different regions");
+            }
+            if (!p.header.version().equals(first.header.version())) {
+                throw new StriaException(first.file + " and " + p.file + " were made by different stria versions ("
+                        + first.header.version() + " vs " + p.header.version() + ")");
+            }
+            if (p.columns != null && !p.columns.equals(first.columns)) {
+                throw new StriaException(first.file + " and " + p.file + " have different TSV columns");
+            }
+        }
+        Part[] byK = new Part[first.n + 1];
+        for (Part p : parts) {
+            if (byK[p.k] != null) {
+                throw new StriaException(byK[p.k].file + " and " + p.file + " are both shard " + p.k + "/" + p.n);
+            }
+            byK[p.k] = p;
+        }
+        List<Integer> missing = new ArrayList<>();
+        for (int k = 1; k <= first.n; k++) {
+            if (byK[k] == null) {
+                missing.add(k);
+            }
+        }
+        if (!missing.isEmpty()) {
+            throw new StriaException("incomplete shard set: " + (missing.size() == 1 ? "shard " : "shards ")
+                    + ranges(missing) + " of " + first.n + " missing from " + fileList(files));
+        }
+        List<Part> ordered = new ArrayList<>(parts);
+        ordered.sort(Comparator.comparingInt(Part::k));
+        return new ShardMerge(ordered, format);
+    }
+
+    public int shards() {
+        return parts.size();
+    }
+
+    /**
+     * The header of the merged result: that of the shards without the {@code #shard} line, with
+     * {@code command} as the command line.
+     */
+    public ResultHeader header(String command) {
+        ResultHeader h = parts.get(0).header;
+        return new ResultHeader(h.version(), command, h.settings(), h.contigs(), null, h.regions());
+    }
+
+    /** Writes the merged result (header, TSV column row, data lines of shards 1..n) to {@code out}. */
+    public void writeTo(OutputStream out, String command) {
+        try {
+            for (String l : header(command).lines()) {
+                writeLine(out, l);
+            }
+            if (format == Format.TSV) {
+                writeLine(out, parts.get(0).columns);
+            }
+            for (Part p : parts) {
+                copyData(p, out);
+            }
+        } catch (IOException e) {
+            throw new StriaException("cannot write merged result: " + AtomicOutputs.describe(e));
+        }
+    }
+
+    private static void copyData(Part p, OutputStream out) throws IOException {
+        try (BufferedReader r = open(p.file)) {
+            String line;
+            boolean inHeader = true;
+            while ((line = r.readLine()) != null) {
+                if (inHeader) {
+                    if (line.startsWith("#")) {
+                        continue;
+                    }
+                    inHeader = false;
+                    if (p.format == Format.TSV) {
+                        continue; // the column row
+                    }
+                }
+                writeLine(out, line);
+            }
+        } catch (IOException | UncheckedIOException | htsjdk.samtools.SAMException e) {
+            throw new StriaException("cannot read " + p.file + ": " + message(e));
+        }
+    }
+
+    private static void writeLine(OutputStream out, String line) throws IOException {
+        // ISO-8859-1 maps chars to bytes one to one, so lines leave exactly as they came in
+        out.write(line.getBytes(StandardCharsets.ISO_8859_1));
+        out.write('\n');
+    }
+
+    private static Part readPart(String file) {
+        List<String> lines = new ArrayList<>();
+        String firstOther = null;
+        try (BufferedReader r = open(file)) {
+            String line;
+            while ((line = r.readLine()) != null) {
+                if (!line.startsWith("#")) {
+                    firstOther = line;
+                    break;
+                }
+                lines.add(line);
+            }
+        } catch (IOException | UncheckedIOException | htsjdk.samtools.SAMException e) {
+            throw new StriaException("cannot read " + file + ": " + message(e));
+        }
+        ResultHeader h;
+        try {
+            h = ResultHeader.parse(lines);
+        } catch (RuntimeException e) {
+            throw new StriaException(file + " has a damaged header: " + e.getMessage());
+        }
+        if (h == null) {
+            throw new StriaException(file + " is not a stria result (no #stria line)");
+        }
+        if (h.shard() == null) {
+            throw new StriaException(file + " has no #shard line, so it is not the result of one shard of a split run");
+        }
+        String inputLine = null;
+        for (String l : lines) {
+            if (l.startsWith(ResultHeader.PREFIX_INPUT)) {
+                inputLine = l;
+            }
+        }
+        if (inputLine == null || !h.inputLineMatches(lines)) {
+            throw new StriaException(file + " has a damaged header: its #input line does not match its #contig lines");
+        }
+        String[] kn = h.shard().split("/");
+        int k;
+        int n;
+        try {
+            k = Integer.parseInt(kn[0]);
+            n = kn.length == 2 ? Integer.parseInt(kn[1]) : -1;
+        } catch (NumberFormatException e) {
+            k = -1;
+            n = -1;
+        }
+        if (kn.length != 2 || n < 1 || k < 1 || k > n) {
+            throw new StriaException(file + " has a damaged #shard line: " + h.shard());
+        }
+        boolean tsv = firstOther != null && firstOther.startsWith(TSV_COLUMNS_START);
+        return new Part(file, h, inputLine, tsv ? firstOther : null, tsv ? Format.TSV : Format.BED, k, n);
+    }
+
+    /** Plain, gzip or BGZF, told apart by content rather than by name. */
+    static BufferedReader open(String file) throws IOException {
+        InputStream in = new BufferedInputStream(Files.newInputStream(Path.of(file)), 1 << 16);
+        try {
+            if (BlockCompressedInputStream.isValidFile(in)) {
+                in = new BlockCompressedInputStream(in);
+            } else if (isGzip(in)) {
+                in = new GZIPInputStream(in, 1 << 16);
+            }
+        } catch (IOException e) {
+            in.close();
+            throw e;
+        }
+        return new BufferedReader(new InputStreamReader(in, StandardCharsets.ISO_8859_1), 1 << 16);
+    }
+
+    private static boolean isGzip(InputStream in) throws IOException {
+        in.mark(2);
+        int a = in.read();
+        int b = in.read();
+        in.reset();
+        return a == 0x1f && b == 0x8b;
+    }
+
+    private static String message(Exception e) {
+        if (e instanceof IOException io) {
+            return AtomicOutputs.describe(io);
+        }
+        if (e instanceof UncheckedIOException u) {
+            return AtomicOutputs.describe(u.getCause());
+        }
+        return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+    }
+
+    /** 1, 3, 4, 5, 9 as "1, 3-5, 9". */
+    static String ranges(List<Integer> ks) {
+        StringBuilder sb = new StringBuilder();
+        int i = 0;
+        while (i < ks.size()) {
+            int j = i;
+            while (j + 1 < ks.size() && ks.get(j + 1) == ks.get(j) + 1) {
+                j++;
+            }
+            if (sb.length() > 0) {
+                sb.append(", ");
+            }
+            sb.append(ks.get(i));
+            if (j > i) {
+                sb.append('-').append(ks.get(j));
+            }
+            i = j + 1;
+        }
+        return sb.toString();
+    }
+
+    private static String fileList(List<String> files) {
+        if (files.size() <= 4) {
+            return String.join(", ", files);
+        }
+        return files.get(0) + ", " + files.get(1) + ", ... " + files.get(files.size() - 1) + " (" + files.size()
+                + " files)";
+    }
+}

@@ -1,0 +1,136 @@
+package stria.pipeline;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Random;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
+import stria.io.Bases;
+import stria.io.ContigInfo;
+import stria.repeats.RunFinder;
+import stria.repeats.RunList;
+import stria.score.Locus;
+import stria.score.ScoreSettings;
+
+/**
+ * Windowed, threaded and split scans give exactly the runs of one unwindowed pass over the whole contig,
+ * including arrays much longer than a window that must be stitched across many windows.
+ */
+class WindowingProperties {
+
+    /** A contig with random background, planted exact and mutated arrays, some longer than several windows. */
+    static byte[] genome(long seed, int length, int maxPeriod) {
+        Random rnd = new Random(seed);
+        byte[] s = new byte[length];
+        String acgt = "ACGT";
+        for (int i = 0; i < length; i++) {
+            s[i] = (byte) acgt.charAt(rnd.nextInt(4));
+        }
+        int arrays = 3 + rnd.nextInt(12);
+        for (int a = 0; a < arrays; a++) {
+            int p = 1 + rnd.nextInt(maxPeriod);
+            int len = p * (2 + rnd.nextInt(rnd.nextBoolean() ? 6 : 200));
+            int at = rnd.nextInt(length);
+            for (int i = at + p; i < Math.min(length, at + len); i++) {
+                s[i] = rnd.nextInt(300) == 0 ? (byte) acgt.charAt(rnd.nextInt(4)) : s[i - p];
+            }
+        }
+        for (int k = rnd.nextInt(4); k > 0; k--) {
+            int at = rnd.nextInt(length);
+            for (int i = at; i < Math.min(length, at + rnd.nextInt(30)); i++) {
+                s[i] = 'N';
+            }
+        }
+        if (rnd.nextBoolean()) {
+            for (int i = 0; i < length / 10; i++) {
+                s[i] = (byte) Character.toLowerCase(s[i]);
+            }
+        }
+        return s;
+    }
+
+    static RunList oracle(byte[] seq, int maxPeriod) {
+        byte[] codes = new byte[seq.length];
+        Bases.encode(seq, 0, seq.length, codes);
+        RunList r = new RunList();
+        new RunFinder().find(codes, 0, seq.length, maxPeriod, r);
+        r.sort();
+        return r;
+    }
+
+    static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges) {
+        return scan(seq, s, ranges, 1 << 20);
+    }
+
+    static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges, long margin) {
+        ContigInfo c = new ContigInfo(0, "c", seq.length);
+        List<ScanUnit> units = new ArrayList<>();
+        ScanUnit.Source src = x -> seq;
+        for (int[] r : ranges) {
+            units.add(new ScanUnit(src, c, r[0], r[1]));
+        }
+        List<String> out = new ArrayList<>();
+        try (Progress p = new Progress(1, false, System.err)) {
+            new GenomeScan(s, p, margin).run(units, new GenomeScan.Output() {
+                @Override
+                public void beginUnit(ScanUnit unit, byte[] q) {
+                }
+
+                @Override
+                public void locus(ScanUnit unit, Locus l) {
+                    out.add(l.start() + "-" + l.end() + "/" + l.period());
+                }
+
+                @Override
+                public void endUnit(ScanUnit unit, byte[] q) {
+                }
+            });
+        }
+        return out;
+    }
+
+    static ScanSettings exact(int maxPeriod, int window, int threads) {
+        return new ScanSettings(true, new ScoreSettings(1, maxPeriod, 0, 0, 0, 0), threads, window, List.of(), 0, 0,
+                1_000_000);
+    }
+
+    @Property(tries = 40)
+    void windowsAndThreadsDoNotChangeRuns(@ForAll long seed, @ForAll @IntRange(min = 1, max = 40) int maxPeriod,
+                                          @ForAll @IntRange(min = 0, max = 2000) int extra,
+                                          @ForAll @IntRange(min = 1, max = 4) int threads) {
+        byte[] seq = genome(seed, 3000 + extra * 3, maxPeriod);
+        RunList truth = oracle(seq, maxPeriod);
+        List<String> expected = new ArrayList<>();
+        for (int i = 0; i < truth.size(); i++) {
+            expected.add(truth.start(i) + "-" + truth.end(i) + "/" + truth.period(i));
+        }
+        int window = ScanSettings.minWindow(maxPeriod) + extra % 500;
+        List<String> got = scan(seq, exact(maxPeriod, window, threads), List.of(new int[] {0, seq.length}));
+        assertThat(got).isEqualTo(expected);
+    }
+
+    @Property(tries = 40)
+    void splitStretchesGiveTheSliceOfTheWholeScan(@ForAll long seed,
+                                                  @ForAll @IntRange(min = 1, max = 30) int maxPeriod,
+                                                  @ForAll @IntRange(min = 1, max = 6) int pieces,
+                                                  @ForAll @IntRange(min = 1, max = 300) int margin) {
+        byte[] seq = genome(seed, 5000, maxPeriod);
+        ScanSettings s = exact(maxPeriod, ScanSettings.minWindow(maxPeriod) + 7, 2);
+        List<String> whole = scan(seq, s, List.of(new int[] {0, seq.length}));
+        Random rnd = new Random(seed);
+        List<int[]> ranges = new ArrayList<>();
+        int at = 0;
+        for (int k = 1; k < pieces; k++) {
+            int cut = at + rnd.nextInt(Math.max(1, seq.length - at));
+            if (cut > at) {
+                ranges.add(new int[] {at, cut});
+                at = cut;
+            }
+        }
+        ranges.add(new int[] {at, seq.length});
+        assertThat(scan(seq, s, ranges, margin)).isEqualTo(whole);
+    }
+}

@@ -1,0 +1,144 @@
+package stria.repeats;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.Random;
+import java.util.Set;
+import java.util.TreeSet;
+
+import net.jqwik.api.Arbitraries;
+import net.jqwik.api.Arbitrary;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.Provide;
+import net.jqwik.api.Tuple;
+import net.jqwik.api.constraints.IntRange;
+
+import stria.io.Bases;
+
+/** Runs against a quadratic reference that follows the definition letter by letter. */
+class RunFinderProperties {
+    private static final byte N = Bases.BREAK;
+
+    /**
+     * For every period p and start i where a BREAK-free square of length 2p begins, extend it both ways
+     * while the period holds, and keep the stretch if p is its smallest period.
+     */
+    static Set<String> referenceRuns(byte[] s, int maxPeriod) {
+        Set<String> runs = new TreeSet<>();
+        int n = s.length;
+        for (int p = 1; 2 * p <= n && p <= maxPeriod; p++) {
+            for (int i = 0; i + 2 * p <= n; i++) {
+                boolean square = true;
+                for (int k = 0; k < p && square; k++) {
+                    square = s[i + k] != N && s[i + k] == s[i + k + p];
+                }
+                if (!square) {
+                    continue;
+                }
+                int a = i;
+                while (a > 0 && s[a - 1] != N && s[a - 1] == s[a - 1 + p]) {
+                    a--;
+                }
+                int b = i + 2 * p;
+                while (b < n && s[b] != N && s[b] == s[b - p]) {
+                    b++;
+                }
+                if (smallestPeriod(s, a, b) == p) {
+                    runs.add(a + "-" + b + "/" + p);
+                }
+            }
+        }
+        return runs;
+    }
+
+    private static int smallestPeriod(byte[] s, int a, int b) {
+        for (int q = 1; ; q++) {
+            boolean ok = true;
+            for (int x = a; x + q < b && ok; x++) {
+                ok = s[x] == s[x + q];
+            }
+            if (ok) {
+                return q;
+            }
+        }
+    }
+
+    static Set<String> found(byte[] s, int from, int len, int maxPeriod, RunFinder finder) {
+        RunList out = new RunList();
+        finder.find(s, from, len, maxPeriod, out);
+        Set<String> runs = new TreeSet<>();
+        for (int i = 0; i < out.size(); i++) {
+            boolean fresh = runs.add(out.start(i) + "-" + out.end(i) + "/" + out.period(i));
+            assertThat(fresh).as("run reported twice: %s", out).isTrue();
+        }
+        return runs;
+    }
+
+    @Provide
+    Arbitrary<byte[]> uniform() {
+        return Arbitraries.integers().between(2, 4).flatMap(sigma ->
+                Arbitraries.bytes().between((byte) 0, (byte) (sigma - 1)).array(byte[].class).ofMaxSize(70));
+    }
+
+    @Provide
+    Arbitrary<byte[]> withBreaks() {
+        return Arbitraries.frequency(Tuple.of(4, (byte) 0), Tuple.of(4, (byte) 1), Tuple.of(1, (byte) 2), Tuple.of(1, N))
+                .array(byte[].class).ofMaxSize(70);
+    }
+
+    /** Copies of short motifs back to back, with point changes and BREAKs: many nested and touching runs. */
+    @Provide
+    Arbitrary<byte[]> repetitive() {
+        return Arbitraries.longs().map(seed -> {
+            Random rnd = new Random(seed);
+            int n = 1 + rnd.nextInt(90);
+            int sigma = 2 + rnd.nextInt(3);
+            byte[] s = new byte[n];
+            int i = 0;
+            while (i < n) {
+                int p = 1 + rnd.nextInt(7);
+                byte[] motif = new byte[p];
+                for (int k = 0; k < p; k++) {
+                    motif[k] = (byte) rnd.nextInt(sigma);
+                }
+                int copies = 1 + rnd.nextInt(5);
+                for (int k = 0; k < p * copies && i < n; k++) {
+                    s[i++] = motif[k % p];
+                }
+            }
+            for (int c = rnd.nextInt(4); c > 0; c--) {
+                s[rnd.nextInt(n)] = rnd.nextInt(3) == 0 ? N : (byte) rnd.nextInt(sigma);
+            }
+            return s;
+        });
+    }
+
+    @Property(tries = 2000)
+    void equalsReferenceOnRandomStrings(@ForAll("uniform") byte[] s) {
+        assertThat(found(s, 0, s.length, Integer.MAX_VALUE, new RunFinder())).isEqualTo(referenceRuns(s, Integer.MAX_VALUE));
+    }
+
+    @Property(tries = 1500)
+    void equalsReferenceWithBreaks(@ForAll("withBreaks") byte[] s) {
+        assertThat(found(s, 0, s.length, Integer.MAX_VALUE, new RunFinder())).isEqualTo(referenceRuns(s, Integer.MAX_VALUE));
+    }
+
+    @Property(tries = 2000)
+    void equalsReferenceOnRepetitiveStringsWithAPeriodLimit(@ForAll("repetitive") byte[] s,
+                                                           @ForAll @IntRange(min = 1, max = 12) int maxPeriod) {
+        assertThat(found(s, 0, s.length, maxPeriod, new RunFinder())).isEqualTo(referenceRuns(s, maxPeriod));
+    }
+
+    /** One finder over many slices of different sizes: reused buffers must not leak state between calls. */
+    @Property(tries = 200)
+    void reusedFinderOnSlicesEqualsReference(@ForAll("repetitive") byte[] a, @ForAll("uniform") byte[] b,
+                                             @ForAll @IntRange(max = 20) int cut) {
+        RunFinder finder = new RunFinder();
+        for (byte[] s : new byte[][] {a, b, a}) {
+            int from = Math.min(cut, s.length);
+            byte[] slice = java.util.Arrays.copyOfRange(s, from, s.length);
+            assertThat(found(s, from, s.length - from, 40, finder)).isEqualTo(referenceRuns(slice, 40));
+        }
+    }
+}
