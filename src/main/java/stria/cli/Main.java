@@ -55,6 +55,8 @@ public final class Main implements Runnable {
         PrintWriter err = cl.getErr();
         if (ex instanceof StriaException) {
             err.println("stria: " + ex.getMessage());
+        } else if (ex instanceof java.io.UncheckedIOException || ex instanceof htsjdk.samtools.util.RuntimeIOException) {
+            err.println("stria: I/O error: " + (ex.getCause() != null ? ex.getCause().getMessage() : ex.getMessage()));
         } else if (ex.getCause() instanceof OutOfMemoryError) {
             err.println("stria: out of memory; give the JVM more with STRIA_JAVA_OPTS=-Xmx..., or fewer --threads");
         } else {

@@ -194,6 +194,11 @@ public final class AtomicOutputs implements AutoCloseable {
             if (report) {
                 throw new StriaException("cannot write " + e.target + ": " + describe(ex));
             }
+        } catch (htsjdk.samtools.util.RuntimeIOException ex) {
+            if (report) {
+                throw new StriaException("cannot write " + e.target + ": " + describe(
+                        ex.getCause() instanceof IOException io ? io : new IOException(ex.getMessage())));
+            }
         } finally {
             e.stream = null;
         }

@@ -81,6 +81,9 @@ public final class ResultWriter {
             throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(e));
         } catch (UncheckedIOException e) {
             throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(e.getCause()));
+        } catch (htsjdk.samtools.util.RuntimeIOException e) {
+            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(
+                    e.getCause() instanceof IOException io ? io : new IOException(e.getMessage())));
         }
         sb.setLength(0);
     }
@@ -90,6 +93,9 @@ public final class ResultWriter {
             out.flush();
         } catch (IOException e) {
             throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(e));
+        } catch (htsjdk.samtools.util.RuntimeIOException e) {
+            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(
+                    e.getCause() instanceof IOException io ? io : new IOException(e.getMessage())));
         }
     }
 }
