@@ -26,6 +26,7 @@ import stria.StriaException;
  */
 public final class AtomicOutputs implements AutoCloseable {
     private static final Set<Path> LIVE_TEMPS = new LinkedHashSet<>();
+    private static final java.util.concurrent.atomic.AtomicInteger SERIAL = new java.util.concurrent.atomic.AtomicInteger();
 
     static {
         Runtime.getRuntime().addShutdownHook(new Thread(AtomicOutputs::deleteLiveTemps, "stria-cleanup"));
@@ -162,8 +163,9 @@ public final class AtomicOutputs implements AutoCloseable {
                 throw new StriaException("output " + target + " is named twice");
             }
         }
-        Path temp = dir.resolve("." + abs.getFileName() + ".stria-" + ProcessHandle.current().pid() + "-"
-                + entries.size() + ".tmp");
+        // the name keeps its extension: readers such as the tabix indexer choose the decompression by it
+        Path temp = dir.resolve(".stria-tmp-" + ProcessHandle.current().pid() + "-" + SERIAL.incrementAndGet() + "-"
+                + abs.getFileName());
         synchronized (LIVE_TEMPS) {
             LIVE_TEMPS.add(temp);
         }

@@ -1,0 +1,74 @@
+package stria.cli;
+
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import stria.out.AtomicOutputs;
+import stria.report.HtmlReport;
+import stria.report.ResultReader;
+import stria.report.ResultSet;
+import stria.report.Summary;
+import stria.report.SummaryTsv;
+
+/** {@code stria report}: a summary of finished TSV results, as an HTML page and/or as TSV on stdout. */
+@Command(name = "report",
+        sortOptions = false,
+        description = {
+                "Summarise TSV results of one genome: an HTML page with tables and charts, or a TSV summary.",
+                "Several files are read as the parts of one genome's results (shards, regions); they must "
+                        + "share the input fingerprint and the settings."},
+        footerHeading = "%n",
+        footer = {SummaryTsv.COLUMN_HELP})
+public final class ReportCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--html", paramLabel = "FILE",
+            description = "Write a self-contained HTML report (charts inline, nothing fetched) to FILE.")
+    String html;
+
+    @Option(names = "--summary", description = "Print the summary table as TSV on stdout (columns below).")
+    boolean summary;
+
+    @Option(names = {"-h", "--help"}, usageHelp = true, description = "Show this help and exit.")
+    boolean help;
+
+    @Parameters(arity = "1..*", paramLabel = "RESULTS.tsv",
+            description = "TSV results of stria scan or merge (plain, gzip or BGZF; - for stdin).")
+    List<String> results;
+
+    @Override
+    public Integer call() {
+        if (html == null && !summary) {
+            throw new ParameterException(spec.commandLine(), "choose an output: --html FILE and/or --summary");
+        }
+        if ("-".equals(html) && summary) {
+            throw new ParameterException(spec.commandLine(), "--html - and --summary would both write to stdout");
+        }
+        if (results.stream().filter("-"::equals).count() > 1) {
+            throw new ParameterException(spec.commandLine(), "standard input (-) can be read only once");
+        }
+        ResultSet r = ResultReader.read(results);
+        Summary s = Summary.of(r);
+        if (!r.missingShards().isEmpty()) {
+            System.err.println("stria report: warning: shards " + r.missingShards() + " of "
+                    + r.shards().get(0).split("/")[1] + " are missing; the report covers only the shards given");
+        }
+        if (html != null) {
+            try (AtomicOutputs outs = new AtomicOutputs()) {
+                HtmlReport.write(r, s, outs.open(html));
+                outs.commit();
+            }
+        }
+        if (summary) {
+            SummaryTsv.write(s, System.out);
+        }
+        return 0;
+    }
+}

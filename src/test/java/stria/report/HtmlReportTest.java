@@ -1,0 +1,116 @@
+package stria.report;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.ByteArrayOutputStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Set;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+class HtmlReportTest {
+    @TempDir
+    Path dir;
+
+    private String report(int contigs) throws Exception {
+        Path tsv = ResultFixtures.genome(dir.resolve("g" + contigs + ".tsv"), contigs, 11);
+        ResultSet r = ResultReader.read(List.of(tsv.toString()));
+        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+        HtmlReport.write(r, Summary.of(r), bytes);
+        return bytes.toString(StandardCharsets.UTF_8);
+    }
+
+    @Test
+    void thePageFetchesNothingAndRunsNoScript() throws Exception {
+        String html = report(300);
+        assertThat(html).doesNotContainIgnoringCase("<script").doesNotContainIgnoringCase(" src=")
+                .doesNotContainIgnoringCase("href=").doesNotContainIgnoringCase("@import");
+        Matcher url = Pattern.compile("url\\(([^)]*)\\)").matcher(html);
+        while (url.find()) {
+            assertThat(url.group(1)).as("only references inside the page").startsWith("#");
+        }
+        // namespace names are identifiers, never fetched; any other address would be
+        String rest = html.replaceAll("xmlns(:\\w+)?=['\"]https?://[^'\"]*['\"]", "");
+        assertThat(rest).doesNotContain("http://").doesNotContain("https://");
+    }
+
+    @Test
+    void idsAreUniqueAcrossTheInlinedCharts() throws Exception {
+        String html = report(300);
+        Matcher m = Pattern.compile("\\bid=['\"]([^'\"]+)['\"]").matcher(html);
+        Set<String> seen = new HashSet<>();
+        int n = 0;
+        while (m.find()) {
+            n++;
+            assertThat(seen.add(m.group(1))).as("duplicate id %s", m.group(1)).isTrue();
+        }
+        assertThat(n).isGreaterThan(5);
+    }
+
+    @Test
+    void manyContigsAreGroupedAndTheProvenanceAndNoteAreShown() throws Exception {
+        String html = report(300);
+        assertThat(html).contains("others (280)").contains("The 20 longest of 300 contigs are drawn")
+                .contains("min-purity").contains("fingerprint=").contains("Research use only")
+                .contains("validated assays");
+        assertThat(count(html, "<svg")).isEqualTo(5);
+        assertThat(count(html, "<tr><td class=\"t\">scaffold_")).isEqualTo(300);
+    }
+
+    @Test
+    void oneContigGetsAProfileAndNoOthers() throws Exception {
+        String html = report(1);
+        assertThat(html).doesNotContain("others (").contains("chrI").contains("bins of");
+        // periods, motifs, one density profile, length-purity; no per-contig share chart for a single contig
+        assertThat(count(html, "<svg")).isEqualTo(4);
+    }
+
+    @Test
+    void tablesAreCappedForVeryFragmentedAssemblies() throws Exception {
+        String html = report(HtmlReport.MAX_TABLE_ROWS + 40);
+        assertThat(count(html, "<tr><td class=\"t\">scaffold_")).isEqualTo(HtmlReport.MAX_TABLE_ROWS);
+        assertThat(html).contains("40 shorter contigs").contains("--summary</code> lists every contig");
+    }
+
+    @Test
+    void emptyAndRegionLimitedResultsStillMakeAPage() throws Exception {
+        var contigs = List.of(new stria.out.ResultHeader.Contig("a", 50_000),
+                new stria.out.ResultHeader.Contig("b", 8_000));
+        Path empty = ResultFixtures.write(dir.resolve("empty.tsv"), ResultFixtures.header(contigs, null, List.of()),
+                List.of());
+        String html = render(empty);
+        assertThat(html).contains("These results contain no loci").contains("</html>").doesNotContain("<svg");
+
+        Path limited = ResultFixtures.write(dir.resolve("limited.tsv"), ResultFixtures.header(contigs, null,
+                List.of(new stria.out.ResultHeader.Span("a", 1_000, 21_000))),
+                List.of(ResultFixtures.row("a", 2_000, 2_040, "AC", 0.95)));
+        html = render(limited);
+        assertThat(html).contains("limited to regions").contains("a:1,001-21,000").contains("bases scanned</th>")
+                .contains("1 contig outside the scanned regions is not listed");
+    }
+
+    private static String render(Path tsv) {
+        ResultSet r = ResultReader.read(List.of(tsv.toString()));
+        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+        HtmlReport.write(r, Summary.of(r), bytes);
+        return bytes.toString(StandardCharsets.UTF_8);
+    }
+
+    @Test
+    void escapesWhatComesFromTheFiles() {
+        assertThat(HtmlReport.esc("<a href=\"x\">&'")).isEqualTo("&lt;a href=&quot;x&quot;&gt;&amp;&#39;");
+    }
+
+    private static int count(String s, String what) {
+        int n = 0;
+        for (int i = s.indexOf(what); i >= 0; i = s.indexOf(what, i + 1)) {
+            n++;
+        }
+        return n;
+    }
+}
