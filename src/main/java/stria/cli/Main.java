@@ -13,12 +13,18 @@ import stria.StriaException;
             "",
             "Results are research-grade. Repeat-expansion loci matter clinically: stria is not a diagnostic "
                 + "test; defer to validated assays, licensed practice and local rules."},
-        subcommands = {ScanCommand.class, CommandLine.HelpCommand.class})
+        subcommands = {ScanCommand.class, MergeCommand.class, PartitionCommand.class, ReportCommand.class,
+            CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final String VERSION = versionString();
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
+
+    static {
+        // the report draws charts with AWT classes; no display is ever needed
+        System.setProperty("java.awt.headless", "true");
+    }
 
     public static void main(String[] args) {
         System.exit(run(args));

@@ -25,6 +25,11 @@ import stria.pipeline.ScanSettings;
 import stria.pipeline.ScanUnit;
 import stria.score.Locus;
 import stria.score.ScoreSettings;
+import stria.shard.ContigSpan;
+import stria.shard.Partition;
+import stria.shard.Piece;
+import stria.shard.Shard;
+import stria.out.MaskedFastaWriter;
 
 /** {@code stria scan}: the main job. */
 @Command(name = "scan", sortOptions = false, usageHelpAutoWidth = true, mixinStandardHelpOptions = true,
@@ -102,6 +107,16 @@ public final class ScanCommand implements Callable<Integer> {
             + "base-balanced split of the input (for cluster job arrays; combine with 'stria merge').")
     String shard;
 
+    @Option(names = "--masked", paramLabel = "FILE", description = "Also write the genome with every reported "
+            + "locus masked (FASTA, 60 bases a line; .gz gives BGZF that samtools faidx can index).")
+    String masked;
+
+    @Option(names = "--mask-style", paramLabel = "STYLE", description = "soft: loci in lower case, the rest "
+            + "upper case (default); keep: loci in lower case, the rest as in the input; hard: loci as N.")
+    MaskStyle maskStyle = MaskStyle.soft;
+
+    enum MaskStyle { soft, keep, hard }
+
     @Option(names = {"-t", "--threads"}, paramLabel = "N", description = "Worker threads (default: all cores, "
             + "here ${DEFAULT-VALUE}). The output is the same for any value.")
     int threads = Runtime.getRuntime().availableProcessors();
@@ -159,6 +174,13 @@ public final class ScanCommand implements Callable<Integer> {
                 outputs.afterClose(bedPath, () -> Tabix.indexBed(tempOf(outputs, bp), tmpIndex, bp));
             }
             ResultWriter writer = new ResultWriter(bedOut, bedPath, tsvOut, tsv);
+            MaskedFastaWriter maskWriter = masked == null ? null : new MaskedFastaWriter(outputs.open(masked),
+                    switch (maskStyle) {
+                        case soft -> MaskedFastaWriter.Mode.SOFT;
+                        case keep -> MaskedFastaWriter.Mode.SOFT_KEEP;
+                        case hard -> MaskedFastaWriter.Mode.HARD;
+                    });
+            stria.repeats.RunList maskSpans = new stria.repeats.RunList();
             String shardText = settings.shardN() > 0 ? settings.shardK() + "/" + settings.shardN() : null;
             ResultHeader header = new ResultHeader(Main.VERSION, commandText(), settings.describe(), all,
                     shardText, spans);
@@ -168,19 +190,36 @@ public final class ScanCommand implements Callable<Integer> {
                 new GenomeScan(settings, p).run(units, new GenomeScan.Output() {
                     @Override
                     public void beginUnit(ScanUnit unit, byte[] seq) {
+                        maskSpans.clear();
                     }
 
                     @Override
                     public void locus(ScanUnit unit, Locus locus) {
                         writer.locus(unit.contig().name(), locus);
+                        if (maskWriter != null) {
+                            maskSpans.add(locus.start(), locus.end(), locus.period());
+                        }
                     }
 
                     @Override
                     public void endUnit(ScanUnit unit, byte[] seq) {
+                        if (maskWriter != null) {
+                            int n = maskSpans.size();
+                            int[] starts = new int[n];
+                            int[] ends = new int[n];
+                            for (int i = 0; i < n; i++) {
+                                starts[i] = maskSpans.start(i);
+                                ends[i] = maskSpans.end(i);
+                            }
+                            maskWriter.writeContig(unit.contig().name(), seq, unit.contig().length(), starts, ends, n);
+                        }
                     }
                 });
             }
             writer.flush();
+            if (maskWriter != null) {
+                maskWriter.close();
+            }
             outputs.commit();
         } finally {
             for (GenomeReader r : readers) {
@@ -244,12 +283,36 @@ public final class ScanCommand implements Callable<Integer> {
             }
             return units;
         }
+        if (settings.shardN() > 0) {
+            List<ShardTarget> flat = new ArrayList<>();
+            List<ContigSpan> spansForPartition = new ArrayList<>();
+            for (GenomeReader r : readers) {
+                for (ContigInfo c : r.contigs()) {
+                    flat.add(new ShardTarget(r, c));
+                    spansForPartition.add(new ContigSpan(c.name(), c.length()));
+                }
+            }
+            Shard mine = Partition.of(spansForPartition, settings.shardN(), settings.grain())
+                    .get(settings.shardK() - 1);
+            Map<String, ShardTarget> byName = new HashMap<>();
+            for (ShardTarget t : flat) {
+                byName.put(t.contig().name(), t);
+            }
+            for (Piece p : mine.pieces()) {
+                ShardTarget t = byName.get(p.contig());
+                units.add(new ScanUnit(sources.get(t.reader()), t.contig(), p.start(), p.end()));
+            }
+            return units;
+        }
         for (GenomeReader r : readers) {
             for (ContigInfo c : r.contigs()) {
                 units.add(new ScanUnit(sources.get(r), c, 0, c.length()));
             }
         }
         return units;
+    }
+
+    private record ShardTarget(GenomeReader reader, ContigInfo contig) {
     }
 
     private Region parseRegion(String text, List<ContigInfo> flat, List<GenomeReader> readers) {
@@ -303,6 +366,8 @@ public final class ScanCommand implements Callable<Integer> {
             require(n >= 1 && k >= 1 && k <= n, "--shard K/N needs 1 <= K <= N (got " + shard + ")");
             require(regions.isEmpty(), "--shard and --region cannot be combined");
         }
+        require(masked == null || (shard == null && regions.isEmpty()),
+                "--masked writes whole genomes: it cannot be combined with --shard or --region");
         ScoreSettings filters = new ScoreSettings(minP, maxP, minC, minL, minPur, minS);
         return new ScanSettings(exact, filters, threads, win, List.copyOf(regions), k, n, 1_000_000);
     }
