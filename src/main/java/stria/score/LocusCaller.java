@@ -1,10 +1,14 @@
 package stria.score;
 
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Comparator;
 import java.util.List;
+import stria.io.Bases;
 import stria.repeats.RunList;
 
 /**
- * Turns exact runs into imperfect tandem-repeat loci. Placeholder: the scorer is being written.
+ * Turns exact runs into imperfect tandem-repeat loci.
  *
  * <p>Contract the pipeline relies on (windows, threads and shards all depend on it):
  * <ul>
@@ -18,9 +22,41 @@ import stria.repeats.RunList;
  *       contig with complete knowledge ({@code lo = from = 0}, {@code hi = to = length}). When the known
  *       runs do not suffice to guarantee that, it throws {@link NeedMoreContextException}.
  * </ul>
+ *
+ * <h2>How a locus is found</h2>
+ * Seeds are exact runs of short period ({@link #SEED_MAX_PERIOD} or less, at least
+ * {@link #SEED_EXTRA} bases longer than one copy) and, for periods from {@link RecurrenceSeeds#MIN_PERIOD}
+ * up, positions whose short word recurs at a steady distance ({@link RecurrenceSeeds}). Each seed not
+ * already inside a locus of its period gives a candidate: its first copy is the provisional motif, the
+ * locus is extended both ways by aligning against the repeated motif ({@link WrapAligner}: wraparound
+ * dynamic programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop),
+ * the consensus is the majority letter at each phase of that alignment (reduced to its primitive root),
+ * and a last alignment against the consensus from the left end gives the right end and the counts.
+ * Seeds of one period separated by a few mismatches or a short indel end up in one candidate because
+ * the extension runs through them.
+ *
+ * <h2>One locus, one period</h2>
+ * Candidates that share bases compete: the higher alignment score less one point per motif base wins
+ * (then the shorter period, then the earlier start); the charge for the motif keeps a long consensus
+ * from winning by memorising the errors of a short repeat. A loser keeps its longest stretch not covered by a winner, realigned, if that still
+ * passes the filters; this is how a compound repeat such as (CA)n(GA)m comes out as two adjacent loci.
+ *
+ * <h2>Why windows do not change the result</h2>
+ * Every seed reaches {@link #reach} bases beyond its ends, and extension never leaves the union of
+ * overlapping reaches that holds its seed. A position no reach crosses is quiet: nothing on one side can
+ * affect the other. A call finds the nearest quiet point at or left of {@code from} and at or right of
+ * {@code to}, far enough inside {@code [lo, hi)} that every seed near them is known exactly, and solves
+ * everything between them exactly as a whole-contig call would; without such points it throws.
  */
 public final class LocusCaller {
+    /** Exact runs of longer period add nothing: recurrence seeds find those repeats too. */
+    public static final int SEED_MAX_PERIOD = 12;
+    /** Bases beyond one copy an exact run needs to seed: 6 keeps random DNA to a few seeds per kb. */
+    public static final int SEED_EXTRA = 6;
+
     private final ScoreSettings settings;
+    private final WrapAligner aligner = new WrapAligner();
+    private final RecurrenceSeeds recurrence = new RecurrenceSeeds();
 
     public LocusCaller(ScoreSettings settings) {
         this.settings = settings;
@@ -32,10 +68,661 @@ public final class LocusCaller {
 
     /** Whether an exact run takes part in scoring; the pipeline keeps only these in memory. */
     public boolean isSeed(int start, int end, int period) {
-        return true;
+        return period <= SEED_MAX_PERIOD && period <= settings.maxPeriod() && end - start - period >= SEED_EXTRA;
+    }
+
+    /** Bases beyond a seed of period p that its locus may reach, and the gap two seeds may be joined across. */
+    static int reach(int p) {
+        return 32 + 2 * p;
+    }
+
+    /** Score drop that ends an extension: a long unit may carry a burst of errors and still continue. */
+    static int xdrop(int p) {
+        return 30 + Math.min(p, 60);
+    }
+
+    /** Bases beyond {@code [from, to)} a call may need on each side in the best case (no repeat nearby). */
+    public int minimumContext() {
+        return margin() + reach(settings.maxPeriod()) + RecurrenceSeeds.K + 1;
+    }
+
+    private int margin() {
+        return RecurrenceSeeds.context(settings.maxPeriod()) + 2 * SEED_MAX_PERIOD + SEED_EXTRA + 8;
     }
 
     public List<Locus> call(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
-        throw new UnsupportedOperationException("scorer not written yet");
+        if (from >= to) {
+            return List.of();
+        }
+        // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
+        // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
+        long pad = 4L * minimumContext();
+        while (true) {
+            int a = (int) Math.max(lo, from - pad);
+            int b = (int) Math.min(hi, to + pad);
+            List<Locus> r = solve(seq, length, seeds, a, b, from, to);
+            if (r != null) {
+                return r;
+            }
+            if (a == lo && b == hi) {
+                throw new NeedMoreContextException("no quiet point within the known runs around [" + from + ", "
+                        + to + ") given [" + lo + ", " + hi + ")");
+            }
+            pad *= 4;
+        }
+    }
+
+    /** The loci of [from, to) computed from what is known in [lo, hi), or null if that cannot be decided. */
+    private List<Locus> solve(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
+        int maxP = settings.maxPeriod();
+        // all seeds known in [lo, hi): exact ones from the pipeline, recurrence ones from the sequence
+        RunList all = new RunList(256);
+        for (int i = 0; i < seeds.size(); i++) {
+            int s = seeds.start(i);
+            int e = seeds.end(i);
+            if (e > lo && s < hi && isSeed(s, e, seeds.period(i))) {
+                all.add(s, e, seeds.period(i));
+            }
+        }
+        recurrence.find(seq, length, lo, hi, maxP, all);
+        all.sort();
+        int n = all.size();
+
+        // union of reaches: components separated by quiet points
+        long[] reachKey = new long[n];
+        for (int i = 0; i < n; i++) {
+            int r = reach(all.period(i));
+            long a = Math.max(0, all.start(i) - r);
+            long b = Math.min(length, (long) all.end(i) + r);
+            reachKey[i] = (a << 32) | b;
+        }
+        Arrays.sort(reachKey);
+        int[] compStart = new int[n];
+        int[] compEnd = new int[n];
+        int comps = 0;
+        for (int i = 0; i < n; i++) {
+            int a = (int) (reachKey[i] >>> 32);
+            int b = (int) reachKey[i];
+            if (comps > 0 && a < compEnd[comps - 1]) {
+                compEnd[comps - 1] = Math.max(compEnd[comps - 1], b);
+            } else {
+                compStart[comps] = a;
+                compEnd[comps] = b;
+                comps++;
+            }
+        }
+
+        int rmax = reach(maxP) + RecurrenceSeeds.K + 1;
+        int minQ1 = lo == 0 ? 0 : lo + margin() + rmax;
+        int maxQ2 = hi >= length ? length : hi - margin() - rmax;
+        int q1 = from;
+        int c = componentAt(compStart, compEnd, comps, from);
+        if (c >= 0 && compStart[c] < from) {
+            q1 = compStart[c];
+        }
+        int q2 = to;
+        c = componentAt(compStart, compEnd, comps, to);
+        if (c >= 0 && compStart[c] < to) {
+            q2 = Math.max(to, compEnd[c]);
+        }
+        if (q1 < minQ1 || q2 > maxQ2) {
+            return null;
+        }
+
+        List<Cand> cands = new ArrayList<>();
+        List<Cand> active = new ArrayList<>();
+        int[] covS = new int[maxP + 3];
+        int[] covE = new int[maxP + 3];
+        Arrays.fill(covE, Integer.MIN_VALUE);
+        // seeds in order of the end of their first copy: in a repeat, recurrence at the unit's distance
+        // shows up before recurrence at two or three units, so the right period is tried first
+        long[] order = new long[n];
+        for (int i = 0; i < n; i++) {
+            order[i] = ((long) (all.start(i) + all.period(i)) << 32) | i;
+        }
+        Arrays.sort(order);
+        for (int oi = 0; oi < n; oi++) {
+            int i = (int) order[oi];
+            int s = all.start(i);
+            int e = all.end(i);
+            int p = all.period(i);
+            if (s < q1 || e > q2) {
+                continue;
+            }
+            if (active.size() > 64) {
+                // every later seed starts at or after its key minus the largest period
+                int horizon = s + p - maxP;
+                active.removeIf(k -> k.end <= horizon);
+            }
+            if (covered(covS, covE, s, e, p, maxP) || coveredByMultiple(active, s, e, p)) {
+                continue;
+            }
+            int ci = componentAt(compStart, compEnd, comps, s);
+            Cand cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
+            if (cand == null) {
+                continue;
+            }
+            mark(covS, covE, p, cand);
+            mark(covS, covE, cand.period, cand);
+            if (p >= RecurrenceSeeds.MIN_PERIOD) {
+                active.add(cand);
+            }
+            if (passes(cand)) {
+                cands.add(cand);
+            }
+            // a seed copy carrying an indel, or a distance spanning several units, gives a period a little
+            // off or a multiple; the period the locus' bases agree with best gets its own candidate
+            int q = otherPeriod(seq, cand.start, cand.end, cand.period);
+            if (q > 0) {
+                Cand alt = candidate(seq, cand.start, q, compStart[ci], compEnd[ci]);
+                if (alt != null) {
+                    mark(covS, covE, alt.period, alt);
+                    if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
+                        active.add(alt);
+                    }
+                    if (passes(alt)) {
+                        cands.add(alt);
+                    }
+                }
+            }
+        }
+        List<Cand> won = resolve(seq, cands);
+        List<Locus> out = new ArrayList<>();
+        for (Cand k : won) {
+            if (k.start >= from && k.start < to) {
+                out.add(k.toLocus(seq));
+            }
+        }
+        return out;
+    }
+
+    /** Index of the component whose half-open interior holds x, or -1. */
+    private static int componentAt(int[] cs, int[] ce, int comps, int x) {
+        int l = 0;
+        int h = comps - 1;
+        int found = -1;
+        while (l <= h) {
+            int m = (l + h) >>> 1;
+            if (cs[m] <= x) {
+                found = m;
+                l = m + 1;
+            } else {
+                h = m - 1;
+            }
+        }
+        return found >= 0 && x < ce[found] ? found : -1;
+    }
+
+    private static boolean covered(int[] covS, int[] covE, int s, int e, int p, int maxP) {
+        // recurrence distances wobble by a base or two around the period where copies carry indels
+        int tol = p >= RecurrenceSeeds.MIN_PERIOD ? 2 : 0;
+        for (int q = Math.max(1, p - tol); q <= Math.min(maxP, p + tol); q++) {
+            int ov = Math.min(e, covE[q]) - Math.max(s, covS[q]);
+            if (2 * ov >= e - s) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * Whether a recurrence seed lies in a locus whose period its distance is a multiple of: in a
+     * satellite, words also recur two or three units apart wherever a unit between carries errors.
+     */
+    private static boolean coveredByMultiple(List<Cand> active, int s, int e, int d) {
+        if (d < RecurrenceSeeds.MIN_PERIOD) {
+            return false;
+        }
+        for (Cand k : active) {
+            if (k.end <= s) {
+                continue;
+            }
+            int ov = Math.min(e, k.end) - Math.max(s, k.start);
+            if (2 * ov < e - s) {
+                continue;
+            }
+            int m = Math.max(1, Math.round(d / (float) k.period));
+            // copies drift apart by their indels: allow 4 % of the distance
+            if (Math.abs(d - m * k.period) <= 2 + d / 25) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static void mark(int[] covS, int[] covE, int p, Cand k) {
+        if (p < covE.length && k.end > covE[p]) {
+            covS[p] = k.start;
+            covE[p] = k.end;
+        }
+    }
+
+    private boolean passes(Cand k) {
+        ScoreSettings st = settings;
+        int len = k.end - k.start;
+        return k.period >= st.minPeriod() && k.period <= st.maxPeriod() && len >= st.minLength()
+                && len >= st.minCopies() * k.period && k.purity() >= st.minPurity() && k.score >= st.minScore();
+    }
+
+    // ---------------------------------------------------------------- one candidate
+
+    // per phase: counts of A, C, G, T aligned there, deletions of it, copies inserting just before it and
+    // the bases they insert
+    private int[] counts = new int[64];
+    private static final int SLOTS = 7;
+    private static final int DELETED = 4;
+    private static final int INSERTED = 5;
+    private static final int INSERTED_BASES = 6;
+    /** Copies that vote on the provisional consensus: plenty to outvote errors, bounded work in satellites. */
+    private static final int VOTE_COPIES = 24;
+    /** Rounds of voting on the locus' own alignment; each must raise the score to be kept. */
+    private static final int VOTE_ROUNDS = 3;
+
+    private int[] clearCounts(int p) {
+        if (counts.length < SLOTS * p) {
+            counts = new int[SLOTS * p];
+        } else {
+            Arrays.fill(counts, 0, SLOTS * p, 0);
+        }
+        return counts;
+    }
+
+    private Cand candidate(byte[] seq, int s, int p, int cs, int ce) {
+        byte[] m0 = new byte[p];
+        for (int k = 0; k < p; k++) {
+            int code = Bases.code(seq[s + k]);
+            if (code < 0 || code > 3) {
+                return null;
+            }
+            m0[k] = (byte) code;
+        }
+        int[] cnt = clearCounts(p);
+        int xd = xdrop(p);
+        // the provisional consensus is voted on the first copies only; the final one on the whole locus
+        aligner.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
+        int right = aligner.bestI();
+        // an insertion of several bases is one vote for its boundary
+        final int[] lastIns = {-1};
+        aligner.traceback((i, j, op) -> {
+            if (op == WrapAligner.DIAG) {
+                cnt[SLOTS * ((j - 1) % p) + Bases.code(seq[s + i - 1])]++;
+            } else if (op == WrapAligner.DEL) {
+                cnt[SLOTS * ((j - 1) % p) + DELETED]++;
+            } else {
+                cnt[SLOTS * (j % p) + INSERTED_BASES]++;
+                if (lastIns[0] != j) {
+                    cnt[SLOTS * (j % p) + INSERTED]++;
+                }
+            }
+            lastIns[0] = op == WrapAligner.INS ? j : -1;
+        });
+        aligner.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
+        int left = aligner.bestI();
+        int leftJ = aligner.bestJ();
+        lastIns[0] = -1;
+        aligner.traceback((i, j, op) -> {
+            if (op == WrapAligner.DIAG) {
+                cnt[SLOTS * Math.floorMod(p - j, p) + Bases.code(seq[s - i])]++;
+            } else if (op == WrapAligner.DEL) {
+                cnt[SLOTS * Math.floorMod(p - j, p) + DELETED]++;
+            } else {
+                cnt[SLOTS * Math.floorMod(p - j, p) + INSERTED_BASES]++;
+                if (lastIns[0] != j) {
+                    cnt[SLOTS * Math.floorMod(p - j, p) + INSERTED]++;
+                }
+            }
+            lastIns[0] = op == WrapAligner.INS ? j : -1;
+        });
+        if (left + right < p + SEED_EXTRA) {
+            return null;
+        }
+        int a = s - left;
+        int phaseA = left == 0 ? 0 : Math.floorMod(p - leftJ, p);
+        int[] phaseMap = new int[1];
+        byte[] m = consensus(cnt, m0, phaseA, phaseMap);
+        if (m == null) {
+            return null;
+        }
+        Cand k = align(seq, a, m, m.length, phaseMap[0], ce - a);
+        for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
+            byte[] next = consensus(counts, k.motif, k.phaseA, phaseMap);
+            if (next == null || Arrays.equals(next, k.motif)) {
+                break;
+            }
+            Cand r = align(seq, a, next, next.length, phaseMap[0], ce - a);
+            if (r == null || r.score <= k.score) {
+                break;
+            }
+            k = r;
+        }
+        return k;
+    }
+
+    /**
+     * Majority consensus with gaps as votes: a phase most copies lack is dropped, and where most copies
+     * insert, as many bases as they insert on average are added (placeholder letters, replaced by the
+     * next vote). Reduced to its primitive root. {@code phaseMap[0]} receives the new phase of
+     * {@code phase}. Null when nothing is left.
+     */
+    private static byte[] consensus(int[] cnt, byte[] base, int phase, int[] phaseMap) {
+        int p = base.length;
+        byte[] m = new byte[p + 8];
+        int n = 0;
+        int mapped = 0;
+        for (int ph = 0; ph < p; ph++) {
+            int o = SLOTS * ph;
+            int through = cnt[o] + cnt[o + 1] + cnt[o + 2] + cnt[o + 3] + cnt[o + DELETED];
+            if (ph == phase) {
+                mapped = n;
+            }
+            if (through > 0 && 2 * cnt[o + INSERTED] > through) {
+                int extra = Math.max(1, Math.round(cnt[o + INSERTED_BASES] / (float) cnt[o + INSERTED]));
+                for (int x = 0; x < extra; x++) {
+                    if (n == m.length) {
+                        m = Arrays.copyOf(m, 2 * m.length);
+                    }
+                    m[n++] = base[ph];
+                }
+            }
+            int best = base[ph];
+            int bc = cnt[o + best];
+            for (int b = 0; b < 4; b++) {
+                if (cnt[o + b] > bc) {
+                    bc = cnt[o + b];
+                    best = b;
+                }
+            }
+            if (cnt[o + DELETED] > bc) {
+                continue;
+            }
+            if (n == m.length) {
+                m = Arrays.copyOf(m, 2 * m.length);
+            }
+            m[n++] = (byte) best;
+        }
+        if (n == 0) {
+            return null;
+        }
+        m = Arrays.copyOf(m, n);
+        mapped = Math.min(mapped, n - 1);
+        int root = primitiveRoot(m);
+        if (root < n) {
+            m = Arrays.copyOf(m, root);
+            mapped %= root;
+        }
+        phaseMap[0] = mapped;
+        return m;
+    }
+
+    /**
+     * Final alignment from a fixed left end: gives the right end, the counts and the phase of every base,
+     * and leaves the votes of the alignment in {@link #counts}.
+     */
+    private Cand align(byte[] seq, int a, byte[] motif, int p, int phaseA, int cap) {
+        aligner.extend(seq, a, 1, motif, p, phaseA, cap, xdrop(p));
+        int len = aligner.bestI();
+        if (len == 0) {
+            return null;
+        }
+        Cand k = new Cand();
+        k.start = a;
+        k.end = a + len;
+        k.period = p;
+        k.motif = motif;
+        k.phaseA = phaseA;
+        k.score = aligner.bestScore();
+        int[] phaseAt = new int[len];
+        k.phaseAt = phaseAt;
+        int[] cnt = clearCounts(p);
+        final int[] lastIns = {-1};
+        aligner.traceback((i, j, op) -> {
+            if (op == WrapAligner.DIAG) {
+                int ph = (phaseA + j - 1) % p;
+                phaseAt[i - 1] = ph;
+                int x = Bases.code(seq[a + i - 1]);
+                cnt[SLOTS * ph + x]++;
+                if (motif[ph] == x) {
+                    k.matches++;
+                } else {
+                    k.mismatches++;
+                }
+            } else if (op == WrapAligner.INS) {
+                int ph = (phaseA + j) % p;
+                phaseAt[i - 1] = ph;
+                k.insertions++;
+                cnt[SLOTS * ph + INSERTED_BASES]++;
+                if (lastIns[0] != j) {
+                    cnt[SLOTS * ph + INSERTED]++;
+                }
+            } else {
+                k.deletions++;
+                cnt[SLOTS * ((phaseA + j - 1) % p) + DELETED]++;
+            }
+            lastIns[0] = op == WrapAligner.INS ? j : -1;
+        });
+        return k;
+    }
+
+    private static final int AGREEMENT_SAMPLE = 1500;
+
+    /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
+    private static double agreement(byte[] seq, int a, int b, int q) {
+        // a sample of the locus says as much as all of it about which period fits
+        b = Math.min(b, a + AGREEMENT_SAMPLE + q);
+        int n = b - a - q;
+        if (n <= 0) {
+            return 0;
+        }
+        int hit = 0;
+        for (int x = a; x < b - q; x++) {
+            int c = Bases.code(seq[x]);
+            if (c == Bases.code(seq[x + q]) && c >= 0 && c <= 3) {
+                hit++;
+            }
+        }
+        return hit / (double) n;
+    }
+
+    /**
+     * A period other than p that the bases of [a, b) support at least as well: the best of p - 3 .. p + 3
+     * when it beats p, else the shortest near-divisor of p that agrees nearly as well; -1 if none.
+     */
+    private static int otherPeriod(byte[] seq, int a, int b, int p) {
+        if (p < 4 || b - a < 2 * p) {
+            return -1;
+        }
+        double base = agreement(seq, a, b, p);
+        int best = -1;
+        double bestAgree = base;
+        for (int q = Math.max(1, p - 3); q <= p + 3; q++) {
+            if (q != p && b - a >= 2 * q) {
+                double g = agreement(seq, a, b, q);
+                if (g > bestAgree + 0.02) {
+                    bestAgree = g;
+                    best = q;
+                }
+            }
+        }
+        if (best > 0) {
+            return best;
+        }
+        for (int m = Math.min(p / 2, 12); m >= 2; m--) {
+            // shortest first: the largest divisor count gives the shortest unit
+            int c = Math.round(p / (float) m);
+            for (int q = Math.max(1, c - 2); q <= c + 2 && q < p; q++) {
+                if (agreement(seq, a, b, q) >= base - 0.05 && agreement(seq, a, b, q) >= 0.5) {
+                    return q;
+                }
+            }
+        }
+        return -1;
+    }
+
+    static int primitiveRoot(byte[] m) {
+        int n = m.length;
+        outer:
+        for (int d = 1; d < n; d++) {
+            if (n % d != 0) {
+                continue;
+            }
+            for (int i = d; i < n; i++) {
+                if (m[i] != m[i - d]) {
+                    continue outer;
+                }
+            }
+            return d;
+        }
+        return n;
+    }
+
+    // ---------------------------------------------------------------- competition between candidates
+
+    private static final Comparator<Cand> BY_POSITION = Comparator.<Cand>comparingInt(k -> k.start)
+            .thenComparingInt(k -> k.end).thenComparingInt(k -> k.period);
+    /**
+     * Strength in a competition: the alignment score less one point per motif base. A long consensus can
+     * absorb the errors of a short repeat copy by copy (a 30-base "unit" of an imperfect CAAT repeat
+     * agrees a little better than CAAT itself); charging for the motif makes the shorter period win
+     * unless the longer one explains the bases clearly better.
+     */
+    static int strength(int score, int period) {
+        return score - period;
+    }
+
+    private static final Comparator<Cand> BY_STRENGTH = Comparator.<Cand>comparingInt(k -> -strength(k.score, k.period))
+            .thenComparingInt(k -> k.period).thenComparingInt(k -> k.start).thenComparingInt(k -> k.end);
+
+    private List<Cand> resolve(byte[] seq, List<Cand> cands) {
+        cands.sort(BY_POSITION);
+        List<Cand> won = new ArrayList<>();
+        int i = 0;
+        while (i < cands.size()) {
+            // a cluster: candidates linked by overlap
+            int j = i + 1;
+            int end = cands.get(i).end;
+            while (j < cands.size() && cands.get(j).start < end) {
+                end = Math.max(end, cands.get(j).end);
+                j++;
+            }
+            List<Cand> cluster = new ArrayList<>(cands.subList(i, j));
+            cluster.sort(BY_STRENGTH);
+            List<Cand> taken = new ArrayList<>();
+            Cand last = null;
+            for (Cand k : cluster) {
+                if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
+                    continue;
+                }
+                last = k;
+                Cand kept = free(seq, k, taken);
+                if (kept != null) {
+                    taken.add(kept);
+                }
+            }
+            taken.sort(BY_POSITION);
+            won.addAll(taken);
+            i = j;
+        }
+        return won;
+    }
+
+    /** The candidate itself if it overlaps nothing taken, else its longest free stretch realigned, or null. */
+    private Cand free(byte[] seq, Cand k, List<Cand> taken) {
+        int g0 = k.start;
+        int g1 = k.end;
+        boolean clash = false;
+        for (Cand t : taken) {
+            if (t.start < k.end && k.start < t.end) {
+                clash = true;
+                break;
+            }
+        }
+        if (!clash) {
+            return k;
+        }
+        // longest stretch of [k.start, k.end) outside every taken locus; leftmost on ties
+        int bestA = 0;
+        int bestB = 0;
+        int x = k.start;
+        while (x < k.end) {
+            int blockEnd = -1;
+            for (Cand t : taken) {
+                if (t.start <= x && x < t.end) {
+                    blockEnd = Math.max(blockEnd, t.end);
+                }
+            }
+            if (blockEnd >= 0) {
+                x = blockEnd;
+                continue;
+            }
+            int y = k.end;
+            for (Cand t : taken) {
+                if (t.start > x && t.start < y) {
+                    y = t.start;
+                }
+            }
+            if (y - x > bestB - bestA) {
+                bestA = x;
+                bestB = y;
+            }
+            x = y;
+        }
+        g0 = bestA;
+        g1 = bestB;
+        if (g1 - g0 < Math.max(settings.minLength(), k.period + SEED_EXTRA)) {
+            return null;
+        }
+        Cand r = align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0);
+        return r != null && passes(r) ? r : null;
+    }
+
+    /** A candidate locus with the alignment figures needed to report or trim it. */
+    private static final class Cand {
+        int start;
+        int end;
+        int period;
+        byte[] motif;
+        int phaseA;
+        int score;
+        int matches;
+        int mismatches;
+        int insertions;
+        int deletions;
+        int[] phaseAt;
+
+        double purity() {
+            int cols = matches + mismatches + insertions + deletions;
+            return cols == 0 ? 0 : matches / (double) cols;
+        }
+
+        Locus toLocus(byte[] seq) {
+            char[] m = new char[period];
+            for (int i = 0; i < period; i++) {
+                m[i] = (char) Bases.letter(motif[(phaseA + i) % period]);
+            }
+            String motifText = new String(m);
+            int len = end - start;
+            return new Locus(start, end, period, motifText, MotifClass.of(motifText), len / (double) period,
+                    purity(), mismatches, insertions, deletions, score, entropy(seq, start, end));
+        }
+    }
+
+    static double entropy(byte[] seq, int start, int end) {
+        int[] c = new int[4];
+        int n = 0;
+        for (int i = start; i < end; i++) {
+            int x = Bases.code(seq[i]);
+            if (x >= 0 && x < 4) {
+                c[x]++;
+                n++;
+            }
+        }
+        double h = 0;
+        for (int x : c) {
+            if (x > 0) {
+                double f = x / (double) n;
+                h -= f * Math.log(f) / Math.log(2);
+            }
+        }
+        return h;
     }
 }

@@ -1,0 +1,205 @@
+package stria.score;
+
+import java.util.Arrays;
+import stria.io.Bases;
+
+/**
+ * Aligns a stretch of DNA, read outwards from an anchor in one direction, against an unbounded repetition
+ * of a motif, and stops where the alignment stops paying. This is wraparound dynamic programming
+ * (Fischetti, Landau, Sellers &amp; Schmidt 1993) restricted to an adaptive band: the template is the
+ * motif unrolled, so a path may drift by insertions and deletions, and each row keeps only the
+ * {@link #BAND} cells around the best cell of the row before. Extension ends by X-drop: once every cell of
+ * a row is more than {@code xdrop} below the best score seen, the best cell is the end.
+ *
+ * <p>One instance per thread; it reuses its buffers, so a call allocates nothing once they have grown.
+ * After {@link #extend} the path to the best cell can be walked with {@link #traceback}.
+ */
+public final class WrapAligner {
+    /** Reward of a text base equal to the motif letter it is aligned with. */
+    public static final int MATCH = 2;
+    /** Cost of a substitution: one and a half matches, so 60 % identity is the break-even point. */
+    public static final int MISMATCH = -3;
+    /** Cost of each inserted or deleted base: a little dearer than a substitution. */
+    public static final int GAP = -5;
+
+    /** Half-width of the band: net drift tolerated between two rows is far smaller. */
+    static final int HALF = 6;
+    static final int BAND = 2 * HALF + 1;
+    private static final int NEG = Integer.MIN_VALUE / 4;
+    // traceback codes
+    static final byte DIAG = 0, INS = 1, DEL = 2, START = 3;
+
+    private static final int PAD = HALF + 2;
+    private int[] prev = new int[BAND + 2 * PAD];
+    private int[] cur = new int[BAND + 2 * PAD];
+    private byte[] trace = new byte[BAND * 1024];
+    private int[] rowLo = new int[1024];
+    // the template unrolled: tmpl[x] is template letter x (letter 0 unused), grown on demand
+    private byte[] tmpl = new byte[1024];
+    private int tmplLen;
+
+    // result of the last extend
+    private int bestI;
+    private int bestJ;
+    private int bestScore;
+
+    /** Text rows consumed by the best alignment. */
+    public int bestI() {
+        return bestI;
+    }
+
+    /** Template letters consumed by the best alignment. */
+    public int bestJ() {
+        return bestJ;
+    }
+
+    public int bestScore() {
+        return bestScore;
+    }
+
+    /**
+     * Extends from {@code pos0} in direction {@code dir} (+1 or -1) over at most {@code cap} bases. Text
+     * base number {@code i} (from 1) is {@code codes(seq[pos0 + dir * (i - 1)])}; template letter number
+     * {@code j} (from 1) is {@code motif[mod(phase + dir * (j - 1), p)]}. A base that is not A, C, G or T
+     * ends the text.
+     */
+    public void extend(byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap, int xdrop) {
+        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable
+        int[] prev = this.prev;
+        int[] cur = this.cur;
+        Arrays.fill(prev, NEG);
+        Arrays.fill(cur, NEG);
+        prev[PAD] = 0;
+        ensureRows(1);
+        rowLo[0] = 0;
+        Arrays.fill(trace, 0, BAND, START);
+        int lo = 0;
+        int prevBestK = 0;
+        tmplLen = 0;
+        bestI = 0;
+        bestJ = 0;
+        bestScore = 0;
+        int pos = pos0;
+        for (int i = 1; i <= cap; i++, pos += dir) {
+            int t = Bases.code(seq[pos]);
+            if (t < 0 || t > 3) {
+                break;
+            }
+            // centre the band on the best cell of the row above, one template letter further on
+            int prevLo = lo;
+            lo = Math.max(0, prevLo + prevBestK + 1 - HALF);
+            int shift = lo - prevLo + PAD;
+            if (i >= rowLo.length) {
+                ensureRows(i + 1);
+            }
+            rowLo[i] = lo;
+            int tb = i * BAND;
+            int rowMax = NEG;
+            int rowMaxK = 0;
+            if (lo + BAND > tmplLen) {
+                unroll(motif, p, phase, dir, lo + BAND);
+            }
+            byte[] tm = tmpl;
+            int left = NEG;
+            for (int k = 0; k < BAND; k++) {
+                int pk = k + shift; // padded index of the same column in the row above
+                // entering column j diagonally consumes template letter j; column 0 has no letter, but its
+                // diagonal predecessor is unreachable anyway
+                int best = prev[pk - 1] + (tm[lo + k] == t ? MATCH : MISMATCH);
+                byte op = DIAG;
+                int ins = prev[pk] + GAP;
+                if (ins > best) {
+                    best = ins;
+                    op = INS;
+                }
+                int del = left + GAP;
+                if (del > best) {
+                    best = del;
+                    op = DEL;
+                }
+                cur[PAD + k] = best;
+                left = best;
+                trace[tb + k] = op;
+                if (best > rowMax) {
+                    rowMax = best;
+                    rowMaxK = k;
+                }
+            }
+            int[] sw = prev;
+            prev = cur;
+            cur = sw;
+            prevBestK = rowMaxK;
+            if (rowMax > bestScore) {
+                bestScore = rowMax;
+                bestI = i;
+                bestJ = lo + rowMaxK;
+            }
+            if (rowMax < bestScore - xdrop) {
+                break;
+            }
+        }
+        this.prev = prev;
+        this.cur = cur;
+    }
+
+    /**
+     * Walks the best path back to the anchor and reports each column to the sink, from the far end
+     * inwards. Returns nothing; the sink sees (text row i from 1 or 0 for a deletion, template letter j,
+     * op).
+     */
+    public void traceback(Sink sink) {
+        int i = bestI;
+        int j = bestJ;
+        while (i > 0 || j > 0) {
+            int k = j - rowLo[i];
+            byte op = (k >= 0 && k < BAND) ? trace[i * BAND + k] : START;
+            if (op == DIAG) {
+                sink.column(i, j, DIAG);
+                i--;
+                j--;
+            } else if (op == INS) {
+                sink.column(i, j, INS);
+                i--;
+            } else if (op == DEL) {
+                sink.column(i, j, DEL);
+                j--;
+            } else {
+                // only the origin row may end here: leading deletions
+                sink.column(0, j, DEL);
+                j--;
+            }
+        }
+    }
+
+    private void unroll(byte[] motif, int p, int phase, int dir, int need) {
+        int n = Math.max(need + 64, 2 * tmplLen);
+        if (tmpl.length < n) {
+            tmpl = Arrays.copyOf(tmpl, n);
+        }
+        // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]
+        int ph = Math.floorMod(phase + dir * (Math.max(tmplLen, 1) - 1), p);
+        for (int x = Math.max(tmplLen, 1); x < n; x++) {
+            tmpl[x] = motif[ph];
+            ph += dir;
+            if (ph == p) {
+                ph = 0;
+            } else if (ph < 0) {
+                ph = p - 1;
+            }
+        }
+        tmplLen = n;
+    }
+
+    /** Receives the columns of a traced alignment. */
+    public interface Sink {
+        void column(int i, int j, byte op);
+    }
+
+    private void ensureRows(int rows) {
+        if (rows > rowLo.length) {
+            int n = Math.max(rows, rowLo.length * 2);
+            rowLo = Arrays.copyOf(rowLo, n);
+            trace = Arrays.copyOf(trace, n * BAND);
+        }
+    }
+}

@@ -1,0 +1,114 @@
+package stria.score;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.util.ArrayList;
+import java.util.List;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
+import net.jqwik.api.statistics.Statistics;
+import stria.repeats.RunList;
+import stria.sim.GenomeSimulator;
+import stria.sim.NaiveRuns;
+
+/**
+ * The contract the pipeline relies on: pieces of a contig, however cut and whatever stretch of runs is
+ * known, give exactly the loci of the whole contig, or ask for more context.
+ */
+class LocusCallerContractProperties {
+    private static final ScoreSettings SETTINGS = new ScoreSettings(1, 100, 2.0, 10, 0.6, 20);
+
+    private static byte[] genome(long seed, int size) {
+        // dense planted repeats of periods up to 60, a gap of N and a lower-case stretch
+        GenomeSimulator.Genome g = GenomeSimulator.generate("--seed", Long.toString(seed), "--size",
+                Integer.toString(size), "--contigs", "1", "--density", "2500", "--max-period", "60",
+                "--satellites", "0", "--gaps", "1", "--lower", "1");
+        return g.sequences().get(0);
+    }
+
+    private static RunList seeds(LocusCaller caller, byte[] seq, int lo, int hi) {
+        // what the pipeline hands over: runs of the known stretch only, clipped at its ends
+        byte[] part = java.util.Arrays.copyOfRange(seq, lo, hi);
+        RunList runs = NaiveRuns.find(part, part.length, LocusCaller.SEED_MAX_PERIOD);
+        RunList out = new RunList();
+        for (int i = 0; i < runs.size(); i++) {
+            int s = runs.start(i) + lo;
+            int e = runs.end(i) + lo;
+            if (caller.isSeed(s, e, runs.period(i))) {
+                out.add(s, e, runs.period(i));
+            }
+        }
+        return out;
+    }
+
+    private static List<Locus> restrict(List<Locus> all, int from, int to) {
+        List<Locus> out = new ArrayList<>();
+        for (Locus l : all) {
+            if (l.start() >= from && l.start() < to) {
+                out.add(l);
+            }
+        }
+        return out;
+    }
+
+    @Property(tries = 60)
+    void piecesConcatenateToTheWholeContig(@ForAll long seed, @ForAll @IntRange(min = 0, max = 1000) int c1,
+                                           @ForAll @IntRange(min = 0, max = 1000) int c2) {
+        byte[] seq = genome(seed, 16000);
+        int len = seq.length;
+        LocusCaller caller = new LocusCaller(SETTINGS);
+        RunList all = seeds(caller, seq, 0, len);
+        List<Locus> whole = caller.call(seq, len, all, 0, len, 0, len);
+        int a = (int) ((long) Math.min(c1, c2) * len / 1000);
+        int b = (int) ((long) Math.max(c1, c2) * len / 1000);
+        List<Locus> joined = new ArrayList<>();
+        joined.addAll(caller.call(seq, len, all, 0, len, 0, a));
+        joined.addAll(caller.call(seq, len, all, 0, len, a, b));
+        joined.addAll(caller.call(seq, len, all, 0, len, b, len));
+        assertThat(joined).isEqualTo(whole);
+        assertThat(whole).isNotEmpty();
+    }
+
+    @Property(tries = 80)
+    void aKnownStretchGivesTheWholeContigAnswerOrAsksForMore(@ForAll long seed,
+                                                             @ForAll @IntRange(min = 0, max = 1000) int f,
+                                                             @ForAll @IntRange(min = 1, max = 3000) int width,
+                                                             @ForAll @IntRange(min = 0, max = 9000) int left,
+                                                             @ForAll @IntRange(min = 0, max = 9000) int right) {
+        byte[] seq = genome(seed, 24000);
+        int len = seq.length;
+        LocusCaller caller = new LocusCaller(SETTINGS);
+        List<Locus> whole = caller.call(seq, len, seeds(caller, seq, 0, len), 0, len, 0, len);
+        int from = (int) ((long) f * (len - 1) / 1000);
+        int to = Math.min(len, from + width);
+        int lo = Math.max(0, from - left);
+        int hi = Math.min(len, to + right);
+        List<Locus> part;
+        try {
+            part = caller.call(seq, len, seeds(caller, seq, lo, hi), lo, hi, from, to);
+        } catch (NeedMoreContextException e) {
+            Statistics.label("outcome").collect("more context");
+            return;
+        }
+        Statistics.label("outcome").collect("answered");
+        assertThat(part).isEqualTo(restrict(whole, from, to));
+    }
+
+    @Property(tries = 40)
+    void enoughContextAlwaysAnswers(@ForAll long seed, @ForAll @IntRange(min = 0, max = 1000) int f) {
+        byte[] seq = genome(seed, 30000);
+        int len = seq.length;
+        LocusCaller caller = new LocusCaller(SETTINGS);
+        int from = (int) ((long) f * (len - 1) / 1000);
+        int to = Math.min(len, from + 2000);
+        // planted loci here are at most 60 x 40 bases long: a stretch reaching well past one always holds
+        // a quiet point on each side
+        int margin = 3 * caller.minimumContext() + 2 * 2400;
+        int lo = Math.max(0, from - margin);
+        int hi = Math.min(len, to + margin);
+        List<Locus> whole = caller.call(seq, len, seeds(caller, seq, 0, len), 0, len, 0, len);
+        assertThat(caller.call(seq, len, seeds(caller, seq, lo, hi), lo, hi, from, to))
+                .isEqualTo(restrict(whole, from, to));
+    }
+}
