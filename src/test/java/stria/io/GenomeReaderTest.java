@@ -461,6 +461,25 @@ class GenomeReaderTest {
     }
 
     @Test
+    void aFileReplacedAfterOpeningIsRefusedWhenLoaded() throws Exception {
+        Random rnd = new Random(2);
+        List<FastaFiles.Rec> recs = new ArrayList<>();
+        for (int i = 0; i < 4; i++) {
+            // larger than the read buffer, so that later records come from the disk again
+            recs.add(new FastaFiles.Rec("big" + i, "", FastaFiles.letters(rnd, 600_000)));
+        }
+        Path p = write(dir.resolve("g.fa"), bytes(format(recs)));
+        try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
+            Files.write(p, bytes(format(recs, 50, "\n", true)));
+            assertThatThrownBy(() -> {
+                for (ContigInfo c : r.contigs()) {
+                    r.sequence(c);
+                }
+            }).isInstanceOf(StriaException.class).hasMessageStartingWith(p + " changed while being read");
+        }
+    }
+
+    @Test
     void aContigFromAnotherReaderIsRejected() {
         Path p = write(dir.resolve("g.fa"), bytes(format(SAMPLE)));
         try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
