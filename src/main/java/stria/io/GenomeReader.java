@@ -12,6 +12,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.Consumer;
+import java.util.function.Function;
 
 import htsjdk.samtools.SAMException;
 import htsjdk.samtools.util.BlockCompressedInputStream;
@@ -28,7 +29,8 @@ import stria.StriaException;
  *
  * <p>Everything is checked when the file is opened (a pre-pass, or the .fai when one matches the file)
  * and every byte again when a sequence is loaded; all problems surface as {@link StriaException} with
- * the file named. Not thread-safe: one reader feeds one pipeline.
+ * the file named. Loading is serialised ({@link #sequence} is synchronized): one file is read by one
+ * cursor, and a pipeline asks for one contig at a time anyway.
  */
 public final class GenomeReader implements AutoCloseable {
     private final String display;
@@ -38,7 +40,7 @@ public final class GenomeReader implements AutoCloseable {
     private final RecordTable table;
     private final int[] record;
     private final List<ContigInfo> contigs;
-    private final String mismatch;
+    private final Function<String, String> mismatch;
 
     private GenomeReader(String display, Path path, Path spooled, InputCursor cursor, RecordTable table,
                          boolean fromIndex, Consumer<String> warn) {
@@ -48,8 +50,9 @@ public final class GenomeReader implements AutoCloseable {
         this.cursor = cursor;
         this.table = table;
         this.mismatch = fromIndex
-                ? display + ".fai does not match " + display + "; rebuild it (samtools faidx) or delete it"
-                : display + " changed while being read";
+                ? detail -> display + ".fai does not match " + display + " (" + detail
+                        + "); rebuild it (samtools faidx) or delete it"
+                : detail -> display + " changed while being read (" + detail + ")";
         Map<String, Long> seen = new HashMap<>();
         List<ContigInfo> list = new ArrayList<>();
         int[] rec = new int[table.size()];
