@@ -412,7 +412,7 @@ class InputErrorsTest {
     // ---- interruption ----
 
     @Test
-    void sigtermMidRunLeavesNothingBehind() throws Exception {
+    void sigtermOrSigintMidRunLeavesNothingBehind() throws Exception {
         Path genome = dir.resolve("big.fa");
         Random rnd = new Random(3);
         try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(genome), 1 << 20)) {
@@ -430,8 +430,9 @@ class InputErrorsTest {
         }
         Path tmp = Files.createDirectory(dir.resolve("tmp"));
         Files.write(dir.resolve("previous.bed"), bytes(PREVIOUS));
-        // once from the file, once from standard input (spooled to a temporary file that must go too)
-        for (boolean stdin : new boolean[] {false, true}) {
+        // from the file, from standard input (spooled to a temporary file that must go too), and Ctrl-C
+        for (String run : List.of("file", "stdin", "interrupt")) {
+            boolean stdin = run.equals("stdin");
             List<String> before = listing();
             ProcessBuilder pb = new ProcessBuilder(Cli.projectDir().resolve("scripts/stria").toString(), "scan",
                     "--threads", "1", "--bed", "previous.bed", "--tsv", "new.tsv", stdin ? "-" : "big.fa")
@@ -453,7 +454,12 @@ class InputErrorsTest {
                     .isTrue();
             assertThat(temporaryOutputExists()).as("temporary outputs appeared").isTrue();
             Thread.sleep(300);
-            p.destroy();
+            if (run.equals("interrupt")) {
+                // the launcher execs java, so the pid is the JVM's: SIGINT is what Ctrl-C sends
+                assertThat(new ProcessBuilder("kill", "-INT", Long.toString(p.pid())).start().waitFor()).isZero();
+            } else {
+                p.destroy();
+            }
             assertThat(p.waitFor(60, TimeUnit.SECONDS)).as("exits after SIGTERM").isTrue();
             assertThat(p.exitValue()).as("interrupted, not successful").isNotZero();
             assertThat(listing()).as("outputs after SIGTERM").isEqualTo(before);
