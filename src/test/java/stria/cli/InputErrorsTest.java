@@ -371,7 +371,6 @@ class InputErrorsTest {
     }
 
     @Test
-    @org.junit.jupiter.api.Disabled("the command overwrites its input genome today; enable when it refuses")
     void anOutputPathThatIsAnInputIsRefused() throws IOException {
         Path genome = write("g.fa", bytes(CLEAN));
         for (String option : List.of("--bed", "-o", "--tsv")) {
