@@ -90,10 +90,15 @@ public final class LocusCaller {
         return RecurrenceSeeds.context(settings.maxPeriod()) + 2 * SEED_MAX_PERIOD + SEED_EXTRA + 8;
     }
 
+    /** Safe to call from several threads at once: each call works in buffers of its own. */
     public List<Locus> call(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
         if (from >= to) {
             return List.of();
         }
+        return new LocusCaller(settings).callAlone(seq, length, seeds, lo, hi, from, to);
+    }
+
+    private List<Locus> callAlone(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
         // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
         // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
         long pad = 4L * minimumContext();
