@@ -346,9 +346,14 @@ public final class LocusCaller {
         // the provisional consensus is voted on the first copies only; the final one on the whole locus
         aligner.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
         int right = aligner.bestI();
-        // an insertion of several bases is one vote for its boundary
+        // an insertion of several bases is one vote for its boundary; the seed copy, which the motif was
+        // read from, does not vote: with few copies it would outvote the others on its own errors
         final int[] lastIns = {-1};
         aligner.traceback((i, j, op) -> {
+            if (i <= p && op != WrapAligner.DEL || j <= p && op == WrapAligner.DEL) {
+                lastIns[0] = -1;
+                return;
+            }
             if (op == WrapAligner.DIAG) {
                 cnt[SLOTS * ((j - 1) % p) + Bases.code(seq[s + i - 1])]++;
             } else if (op == WrapAligner.DEL) {
