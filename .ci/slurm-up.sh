@@ -22,11 +22,15 @@ die() { echo "slurm-up: $*" >&2; exit 1; }
 mkdir -p "$STATE"
 touch "$STATE/started"
 
-# A cluster that already answers (from an earlier run of this script, or set up by someone else) is used
-# as it is; rewriting its configuration under running daemons would confuse them.
 node_states() { sinfo -h -N -o '%T' 2>/dev/null || true; }
-if command -v sinfo >/dev/null && node_states | grep -qx 'idle'; then
-    say "already up: $(sinfo -h -N -o '%N %T %c CPUs %m MB' | head -1)"
+# a pid file left by a machine that was stopped may name a process that is now something else
+alive() { [ -s "$1" ] && [ "$(cat /proc/"$(cat "$1")"/comm 2>/dev/null)" = "$2" ]; }
+
+# A cluster configured by someone else that already answers is used as it is: rewriting its
+# configuration under running daemons would confuse them.
+if [ -e "$CONF" ] && ! grep -qF "$MARK" "$CONF" && command -v sinfo >/dev/null \
+        && node_states | grep -qx 'idle'; then
+    say "using the running cluster of $CONF: $(sinfo -h -N -o '%N %T %c CPUs %m MB' | head -1)"
     exit 0
 fi
 
@@ -76,7 +80,8 @@ if [ -e "$CONF" ] && ! grep -qF "$MARK" "$CONF"; then
     mv "$CONF" "$CONF.before-stria"
     say "kept the earlier $CONF as $CONF.before-stria"
 fi
-cat >"$CONF" <<EOF
+# compared before it replaces the old file, so running daemons see no change when there is none
+cat >"$CONF.new" <<EOF
 $MARK
 ClusterName=stria-test
 SlurmctldHost=$HOST(127.0.0.1)
@@ -109,27 +114,31 @@ MaxArraySize=10001
 NodeName=$HOST NodeAddr=127.0.0.1 CPUs=$CPUS RealMemory=$MEM_MB State=UNKNOWN
 PartitionName=main Nodes=$HOST Default=YES MaxTime=INFINITE State=UP
 EOF
-say "wrote $CONF: node $HOST, $CPUS CPUs, $MEM_MB MB"
+if cmp -s "$CONF.new" "$CONF"; then
+    rm -f "$CONF.new"
+    say "$CONF is up to date: node $HOST, $CPUS CPUs, $MEM_MB MB"
+else
+    mv "$CONF.new" "$CONF"
+    say "wrote $CONF: node $HOST, $CPUS CPUs, $MEM_MB MB"
+fi
 
-alive() { [ -s "$1" ] && kill -0 "$(cat "$1")" 2>/dev/null; }
-
-if alive /run/slurmctld.pid; then
+if alive /run/slurmctld.pid slurmctld; then
     say "slurmctld already running"
 else
     say "starting slurmctld"
     slurmctld
-    for _ in $(seq 1 50); do alive /run/slurmctld.pid && break; sleep 0.2; done
-    alive /run/slurmctld.pid || die "slurmctld did not start; see /var/log/slurm/slurmctld.log"
+    for _ in $(seq 1 50); do alive /run/slurmctld.pid slurmctld && break; sleep 0.2; done
+    alive /run/slurmctld.pid slurmctld || die "slurmctld did not start; see /var/log/slurm/slurmctld.log"
     echo "slurmctld $(cat /run/slurmctld.pid)" >>"$STATE/started"
 fi
 
-if alive /run/slurmd.pid; then
+if alive /run/slurmd.pid slurmd; then
     say "slurmd already running"
 else
     say "starting slurmd"
     slurmd
-    for _ in $(seq 1 50); do alive /run/slurmd.pid && break; sleep 0.2; done
-    alive /run/slurmd.pid || die "slurmd did not start; see /var/log/slurm/slurmd.log"
+    for _ in $(seq 1 50); do alive /run/slurmd.pid slurmd && break; sleep 0.2; done
+    alive /run/slurmd.pid slurmd || die "slurmd did not start; see /var/log/slurm/slurmd.log"
     echo "slurmd $(cat /run/slurmd.pid)" >>"$STATE/started"
 fi
 

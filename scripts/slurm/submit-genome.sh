@@ -22,7 +22,7 @@ set -euo pipefail
 here=$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)
 export STRIA=${STRIA:-$(cd "$here/.." && pwd)/stria}
 
-usage() { sed -n '4,12p' "${BASH_SOURCE[0]}" | sed 's/^# \{0,1\}//' >&2; exit 2; }
+usage() { sed -n '4,12p' "${BASH_SOURCE[0]}" | sed 's/^# \{0,1\}//' >&2; exit "${1:-2}"; }
 die() { echo "submit-genome: $*" >&2; exit 2; }
 
 shards= work= bed= tsv= extra= clean=0 wait=0
@@ -36,7 +36,7 @@ while [ $# -gt 0 ]; do
         --clean) clean=1; shift ;;
         --wait) wait=1; shift ;;
         --) shift; break ;;
-        -h|--help) usage ;;
+        -h|--help) usage 0 ;;
         *) die "unknown option $1 (scan options and genome files go after --)" ;;
     esac
 done

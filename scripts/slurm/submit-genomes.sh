@@ -22,11 +22,11 @@ set -euo pipefail
 here=$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)
 export STRIA=${STRIA:-$(cd "$here/.." && pwd)/stria}
 
-usage() { sed -n '5,15p' "${BASH_SOURCE[0]}" | sed 's/^# \{0,1\}//' >&2; exit 2; }
+usage() { sed -n '5,15p' "${BASH_SOURCE[0]}" | sed 's/^# \{0,1\}//' >&2; exit "${1:-2}"; }
 die() { echo "submit-genomes: $*" >&2; exit 2; }
 
 [ $# -gt 0 ] || usage
-case "$1" in -h|--help) usage ;; esac
+case "$1" in -h|--help) usage 0 ;; esac
 list=$1
 shift
 out= work= shards= shard_bases= formats=bed pass=()
@@ -40,7 +40,7 @@ while [ $# -gt 0 ]; do
         --sbatch) pass+=(--sbatch "${2:-}"); shift 2 ;;
         --clean) pass+=(--clean); shift ;;
         --) shift; break ;;
-        -h|--help) usage ;;
+        -h|--help) usage 0 ;;
         *) die "unknown option $1" ;;
     esac
 done

@@ -3,20 +3,19 @@ package stria.cli;
 import stria.score.ScoreSettings;
 
 /**
- * Defaults of the imperfect mode, chosen on the planted-truth benchmark (README, Benchmarks). Kept as
- * compile-time constants so that {@code --help} can show them.
+ * Defaults of the imperfect mode (chosen by the scorer on the planted-truth benchmark), as compile-time
+ * text so that {@code --help} can show them.
  */
 final class ImperfectDefaults {
-    static final String MIN_COPIES = "2";
-    static final String MIN_LENGTH = "12";
-    static final String MIN_PURITY = "0.8";
-    static final String MIN_SCORE = "30";
+    static final String MIN_COPIES = "" + ScoreSettings.DEFAULT_MIN_COPIES;
+    static final String MIN_LENGTH = "" + ScoreSettings.DEFAULT_MIN_LENGTH;
+    static final String MIN_PURITY = "" + ScoreSettings.DEFAULT_MIN_PURITY;
+    static final String MIN_SCORE = "" + ScoreSettings.DEFAULT_MIN_SCORE;
 
     private ImperfectDefaults() {
     }
 
     static ScoreSettings settings(int maxPeriod) {
-        return new ScoreSettings(1, maxPeriod, Double.parseDouble(MIN_COPIES), Integer.parseInt(MIN_LENGTH),
-                Double.parseDouble(MIN_PURITY), Integer.parseInt(MIN_SCORE));
+        return ScoreSettings.defaults().withMaxPeriod(maxPeriod);
     }
 }

@@ -2,7 +2,6 @@ package stria.cli;
 
 import java.io.IOException;
 import java.io.OutputStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -69,7 +68,7 @@ public final class MergeCommand implements Callable<Integer> {
             OutputStream stream = outputs.open(out);
             if (format == ShardMerge.Format.BED && !out.equals("-") && AtomicOutputs.isBgzf(out)) {
                 Path index = outputs.companion(out, out + ".tbi");
-                outputs.afterClose(out, () -> indexBed(outputs.tempPath(out), index, out));
+                outputs.afterClose(out, () -> Tabix.indexBed(outputs.tempPath(out), index, out));
             }
             merge.writeTo(stream, command);
             try {
@@ -86,30 +85,5 @@ public final class MergeCommand implements Callable<Integer> {
         List<String> typed = spec.commandLine().getParseResult().originalArgs();
         String text = String.join(" ", typed);
         return !typed.isEmpty() && typed.get(0).equals("merge") ? text : "merge " + text;
-    }
-
-    /**
-     * htsjdk decides whether a file is block-compressed by its name, and the temporary file's name does not
-     * end in .gz; a link with such a name lets the index be built before the rename.
-     */
-    private static void indexBed(Path temporary, Path index, String displayName) {
-        if (temporary.getFileName().toString().endsWith(".gz")) {
-            Tabix.indexBed(temporary, index, displayName);
-            return;
-        }
-        Path link = temporary.resolveSibling(temporary.getFileName() + ".gz");
-        try {
-            Files.deleteIfExists(link);
-            Files.createSymbolicLink(link, temporary.getFileName());
-            Tabix.indexBed(link, index, displayName);
-        } catch (IOException e) {
-            throw new StriaException("cannot index " + displayName + ": " + AtomicOutputs.describe(e));
-        } finally {
-            try {
-                Files.deleteIfExists(link);
-            } catch (IOException ignored) {
-                // a stray link beside the output is harmless and names this process
-            }
-        }
     }
 }

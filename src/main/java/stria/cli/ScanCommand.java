@@ -52,7 +52,7 @@ public final class ScanCommand implements Callable<Integer> {
     /** Defaults of the exact mode: every run an annotator would mask, not every AA. */
     static final int EXACT_MIN_LENGTH = 12;
     static final double EXACT_MIN_COPIES = 2;
-    static final int DEFAULT_MAX_PERIOD = 2000;
+    static final int DEFAULT_MAX_PERIOD = ScoreSettings.DEFAULT_MAX_PERIOD;
     static final int DEFAULT_WINDOW = 4_000_000;
 
     @CommandLine.Spec

@@ -49,6 +49,7 @@ final class FastaPrePass {
             throw new StriaException(display + ": file is empty");
         }
         sniff();
+        skipByteOrderMark();
         while (in.pos < in.lim || in.refill()) {
             switch (mode) {
                 case PREAMBLE -> preamble();
@@ -76,6 +77,14 @@ final class FastaPrePass {
                 throw new StriaException(display + ": binary data, not a FASTA file (" + FastaSyntax.describe(b)
                         + " at offset " + i + ")");
             }
+        }
+    }
+
+    /** Some editors start UTF-8 text with a byte order mark; it is not part of the first line. */
+    private void skipByteOrderMark() {
+        if (in.lim - in.pos >= 3 && (in.buf[in.pos] & 0xFF) == 0xEF && (in.buf[in.pos + 1] & 0xFF) == 0xBB
+                && (in.buf[in.pos + 2] & 0xFF) == 0xBF) {
+            in.pos += 3;
         }
     }
 

@@ -97,8 +97,13 @@ public final class GenomeReader implements AutoCloseable {
     public static GenomeReader open(String pathOrDash, Consumer<String> warn) {
         boolean stdin = "-".equals(pathOrDash);
         String display = stdin ? "<stdin>" : pathOrDash;
-        Path spooled = stdin ? spoolStandardInput() : null;
-        Path path = stdin ? spooled : pathOf(pathOrDash);
+        Path path = stdin ? null : pathOf(pathOrDash);
+        // a pipe (process substitution, a fifo) can be read only once, like standard input
+        boolean pipe = stdin || (Files.exists(path) && !Files.isDirectory(path) && !Files.isRegularFile(path));
+        Path spooled = pipe ? spool(path, display) : null;
+        if (pipe) {
+            path = spooled;
+        }
         InputCursor cursor = null;
         try {
             checkFile(path, display);
@@ -112,13 +117,13 @@ public final class GenomeReader implements AutoCloseable {
             if (kind == Compression.BGZF) {
                 checkTermination(path, display, warn);
                 Path gziPath = IndexFiles.gziOf(path);
-                if (!stdin && Files.isRegularFile(gziPath)) {
+                if (!pipe && Files.isRegularFile(gziPath)) {
                     gzi = IndexFiles.loadGzi(path, gziPath, display);
                 }
             }
             cursor = new InputCursor(path, kind, gzi, display);
             Path fai = IndexFiles.faiOf(path);
-            boolean useFai = !stdin && kind != Compression.GZIP && Files.isRegularFile(fai);
+            boolean useFai = !pipe && kind != Compression.GZIP && Files.isRegularFile(fai);
             RecordTable table = useFai ? IndexFiles.fromFai(fai, cursor, display) : FastaPrePass.scan(cursor, display);
             return new GenomeReader(display, path, spooled, cursor, table, useFai, warn);
         } catch (RuntimeException e) {
@@ -146,7 +151,7 @@ public final class GenomeReader implements AutoCloseable {
      *
      * @throws StriaException when a byte is not an IUPAC nucleotide letter, naming record, line and letter
      */
-    public byte[] sequence(ContigInfo c) {
+    public synchronized byte[] sequence(ContigInfo c) {
         if (c.index() >= contigs.size() || !contigs.get(c.index()).equals(c)) {
             throw new IllegalArgumentException("contig " + c + " is not from " + display);
         }
@@ -210,17 +215,23 @@ public final class GenomeReader implements AutoCloseable {
         }
     }
 
-    private static Path spoolStandardInput() {
+    /** Copies standard input ({@code source == null}) or a pipe to a temporary file deleted at exit. */
+    private static Path spool(Path source, String display) {
         Path tmp = null;
         try {
-            tmp = Files.createTempFile("stria-stdin-", ".fa");
+            tmp = Files.createTempFile("stria-input-", ".fa");
             tmp.toFile().deleteOnExit();
-            InputStream in = System.in;
-            Files.copy(in, tmp, StandardCopyOption.REPLACE_EXISTING);
+            if (source == null) {
+                Files.copy(System.in, tmp, StandardCopyOption.REPLACE_EXISTING);
+            } else {
+                try (InputStream in = Files.newInputStream(source)) {
+                    Files.copy(in, tmp, StandardCopyOption.REPLACE_EXISTING);
+                }
+            }
             return tmp;
         } catch (IOException e) {
             deleteQuietly(tmp);
-            throw new StriaException("<stdin>: cannot copy standard input to a temporary file ("
+            throw new StriaException(display + ": cannot copy the input to a temporary file ("
                     + InputCursor.oneLine(e) + ")", e);
         }
     }

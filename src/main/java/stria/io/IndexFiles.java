@@ -79,7 +79,26 @@ final class IndexFiles {
         RecordTable table = new RecordTable();
         long next = 0;
         for (FastaSequenceIndexEntry e : fai) {
-            String problem = checkEntry(e, next, in);
+            String problem = null;
+            while (problem == null) {
+                if (!atHeader(skipLineEnds(in, next), in)) {
+                    problem = "no header line where one should start";
+                    break;
+                }
+                String name = readHeader(in, display);
+                if (name.equals(e.getContig())) {
+                    problem = checkEntry(e, in);
+                    break;
+                }
+                // samtools leaves records without sequence out of a .fai
+                Landing after = skipLineEnds(in, in.position());
+                if (!atHeader(after, in) && !(after != Landing.PAST_END && in.peek() < 0)) {
+                    problem = "the header line has another name";
+                    break;
+                }
+                table.add(name, 0, in.position(), 0);
+                next = in.position();
+            }
             if (problem != null) {
                 throw new StriaException(what + " does not match " + display + " (record " + e.getContig() + ": "
                         + problem + "); rebuild it (samtools faidx) or delete it");
@@ -87,11 +106,50 @@ final class IndexFiles {
             table.add(e.getContig(), e.getSize(), e.getLocation(), 0);
             next = e.getSize() == 0 ? e.getLocation() : lastBase(e) + 1;
         }
-        if (table.size() == 0 || !skipLineEnds(in, next) || in.peek() >= 0) {
+        Landing end = skipLineEnds(in, next);
+        while (atHeader(end, in)) {
+            String name = readHeader(in, display);
+            table.add(name, 0, in.position(), 0);
+            end = skipLineEnds(in, in.position());
+        }
+        if (table.size() == 0 || end == Landing.PAST_END || in.peek() >= 0) {
             throw new StriaException(what + " does not match " + display
                     + " (the file has more records than the index); rebuild it (samtools faidx) or delete it");
         }
         return table;
+    }
+
+    /** Reads a header line from its '>' to past its line end and returns the record name. */
+    private static String readHeader(InputCursor in, String display) {
+        long start = in.position();
+        in.pos++;
+        java.io.ByteArrayOutputStream name = new java.io.ByteArrayOutputStream();
+        boolean inName = true;
+        int c = in.peek();
+        while (c >= 0 && c != '\n') {
+            // the pre-pass refuses control bytes in headers; an index must not make such a file acceptable
+            if (FastaSyntax.isControl(c)) {
+                throw new StriaException(display + ": " + FastaSyntax.describe(c) + " in the header line at offset "
+                        + start + "; binary data, not a FASTA file");
+            }
+            inName = inName && c != ' ' && c != '\t' && c != '\r';
+            if (inName) {
+                name.write(c);
+                if (name.size() > FastaSyntax.MAX_NAME) {
+                    throw new StriaException(display + ": header line at offset " + start + ": record name longer than "
+                            + FastaSyntax.MAX_NAME + " bytes; this is not a FASTA file");
+                }
+            }
+            in.pos++;
+            c = in.peek();
+        }
+        if (c == '\n') {
+            in.pos++;
+        }
+        if (name.size() == 0) {
+            throw new StriaException(display + ": header line at offset " + start + " has no record name after '>'");
+        }
+        return name.toString(StandardCharsets.UTF_8);
     }
 
     private static long lastBase(FastaSequenceIndexEntry e) {
@@ -99,31 +157,9 @@ final class IndexFiles {
         return e.getLocation() + k / e.getBasesPerLine() * e.getBytesPerLine() + k % e.getBasesPerLine();
     }
 
-    /** Why an entry does not describe the record found after {@code from}, or null when it does. */
-    private static String checkEntry(FastaSequenceIndexEntry e, long from, InputCursor in) {
-        if (!skipLineEnds(in, from) || in.peek() != '>') {
-            return "no header line where one should start";
-        }
-        in.pos++;
-        byte[] want = e.getContig().getBytes(StandardCharsets.UTF_8);
-        for (byte w : want) {
-            if (in.peek() != (w & 0xFF)) {
-                return "the header line has another name";
-            }
-            in.pos++;
-        }
-        int c = in.peek();
-        if (c != ' ' && c != '\t' && c != '\r' && c != '\n' && c >= 0) {
-            return "the header line has another name";
-        }
-        for (long n = 0; c >= 0 && c != '\n'; n++) {
-            if (n > FastaSyntax.MAX_NAME) {
-                return "header line too long";
-            }
-            in.pos++;
-            c = in.peek();
-        }
-        long afterHeader = in.position() + (c < 0 ? 0 : 1);
+    /** Why an entry does not describe the record whose header line was just read, or null when it does. */
+    private static String checkEntry(FastaSequenceIndexEntry e, InputCursor in) {
+        long afterHeader = in.position();
         if (afterHeader != e.getLocation()) {
             return "sequence offset " + e.getLocation() + " but the header line ends at " + afterHeader;
         }
@@ -137,7 +173,7 @@ final class IndexFiles {
         if (!in.moveTo(lastBase(e))) {
             return "the file ends before the last base";
         }
-        c = in.peek();
+        int c = in.peek();
         if (c == '\r' || c == '\n' || c == '>' || c < 0) {
             return "length " + e.getSize() + " does not fit the lines in the file";
         }
@@ -149,13 +185,31 @@ final class IndexFiles {
         return null;
     }
 
-    private static boolean skipLineEnds(InputCursor in, long from) {
+    /**
+     * Moves to {@code from} and past any line ends there, as the pre-pass would read them: a '>' opens a
+     * record only at the start of a line, so the answer says whether the cursor ends up at one.
+     */
+    private static Landing skipLineEnds(InputCursor in, long from) {
+        boolean lineStart = from == 0;
+        if (from > 0) {
+            if (!in.moveTo(from - 1)) {
+                return Landing.PAST_END;
+            }
+            lineStart = in.peek() == '\n';
+        }
         if (!in.moveTo(from)) {
-            return false;
+            return Landing.PAST_END;
         }
         for (int c = in.peek(); c == '\r' || c == '\n'; c = in.peek()) {
+            lineStart = c == '\n';
             in.pos++;
         }
-        return true;
+        return lineStart ? Landing.LINE_START : Landing.MID_LINE;
+    }
+
+    private enum Landing { PAST_END, LINE_START, MID_LINE }
+
+    private static boolean atHeader(Landing l, InputCursor in) {
+        return l == Landing.LINE_START && in.peek() == '>';
     }
 }

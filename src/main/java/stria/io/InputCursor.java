@@ -176,7 +176,8 @@ final class InputCursor implements Closeable {
     }
 
     static String oneLine(Throwable e) {
-        String m = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+        String m = e instanceof java.io.EOFException && e.getMessage() == null ? "unexpected end of data"
+                : e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
         m = m.replaceAll("\\s+", " ").strip();
         return m.length() > 200 ? m.substring(0, 200) + "..." : m;
     }

@@ -34,12 +34,12 @@ public final class ResultWriter {
         for (String l : lines) {
             sb.append(l).append('\n');
         }
+        String head = sb.toString();
         if (bed != null) {
-            write(bed, bedName, sb);
+            write(bed, bedName, new StringBuilder(head));
         }
         if (tsv != null) {
-            sb.append(LocusFormat.TSV_HEADER).append('\n');
-            write(tsv, tsvName, sb);
+            write(tsv, tsvName, new StringBuilder(head).append(LocusFormat.TSV_HEADER).append('\n'));
         }
     }
 

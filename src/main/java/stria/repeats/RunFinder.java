@@ -69,10 +69,10 @@ public final class RunFinder {
         for (int r = 0; r < len; r++) {
             isa[sa[r]] = r;
         }
-        branching.collect(sa, isa, lcp, len, maxPeriod);
+        branching.collect(codes, from, sa, isa, lcp, len, maxPeriod);
+        branching.sortByEndThenLength(len, Math.min(maxPeriod, len));
         long[] sq = branching.squares();
         int count = branching.count();
-        Arrays.sort(sq, 0, count);
         boolean anyBreak = false;
         for (int i = from, e = from + len; i < e; i++) {
             if (codes[i] == Bases.BREAK) {

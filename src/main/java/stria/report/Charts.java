@@ -383,7 +383,7 @@ final class Charts {
             max = Math.max(1, all.get((int) Math.floor(0.99 * (all.size() - 1))));
         }
         max = niceCeil(max);
-        double unit = longest >= 2_000_000 ? 1e6 : longest >= 2_000 ? 1e3 : 1;
+        double unit = longest >= 1_000_000 ? 1e6 : longest >= 1_000 ? 1e3 : 1;
         String unitName = unit == 1e6 ? "Mb" : unit == 1e3 ? "kb" : "bp";
         return new Density(top, bin, pct, Math.min(100, max), unit, unitName);
     }
@@ -480,14 +480,17 @@ final class Charts {
     /** A filled profile of one contig: reads better than a strip when only a few contigs exist. */
     static JFreeChart densityProfile(ResultSet r, Density d, int t) {
         var contig = r.header().contigs().get(d.contigs().get(t));
+        // each profile has its own axis, so each contig gets the unit that suits its own length
+        double unit = contig.length() >= 1_000_000 ? 1e6 : contig.length() >= 1_000 ? 1e3 : 1;
+        String unitName = unit == 1e6 ? "Mb" : unit == 1e3 ? "kb" : "bp";
         XYSeries s = new XYSeries(contig.name(), false, true);
         double[] p = d.percent()[t];
         for (int b = 0; b < p.length; b++) {
-            s.add(b * d.bin() / d.unit(), Double.isNaN(p[b]) ? null : p[b]);
+            s.add(b * d.bin() / unit, Double.isNaN(p[b]) ? null : p[b]);
         }
-        s.add(Math.min(contig.length(), (long) p.length * d.bin()) / d.unit(),
+        s.add(Math.min(contig.length(), (long) p.length * d.bin()) / unit,
                 p.length == 0 || Double.isNaN(p[p.length - 1]) ? null : p[p.length - 1]);
-        NumberAxis x = valueAxis("position (" + d.unitName() + ")");
+        NumberAxis x = valueAxis("position (" + unitName + ")");
         x.setLowerMargin(0);
         x.setUpperMargin(0);
         NumberAxis y = valueAxis("% in repeats");
@@ -540,8 +543,10 @@ final class Charts {
         }
         double x0 = Math.floor(Math.log10(minLen));
         double x1 = Math.max(x0 + 1, Math.ceil(Math.log10(maxLen) * 10) / 10 + 0.05);
-        int nx = 48;
-        double dx = (x1 - x0) / nx;
+        // a cell is at least one base wide at the short end, else short loci leave empty stripes between
+        // the integer lengths
+        double dx = Math.max((x1 - x0) / 48, Math.log10(1 + 1 / Math.pow(10, x0)));
+        int nx = (int) Math.ceil((x1 - x0) / dx - 1e-9);
         double y0 = Math.max(0, Math.floor(minPurity * 20) / 20);
         double dy = (1 - y0) <= 0.3 ? 0.01 : 0.02;
         int ny = (int) Math.round((1 - y0) / dy) + 1; // the top bin holds purity 1 exactly
@@ -592,6 +597,70 @@ final class Charts {
         stylePlot(p);
         JFreeChart chart = new JFreeChart(null, null, p, false);
         chart.addSubtitle(scaleLegend(new Ramp(0, zMax, COUNT_STOPS), "loci per cell", true));
+        return style(chart);
+    }
+
+    /** Whether every locus has purity 1 (exact runs): then purity carries no information to plot. */
+    static boolean allExact(ResultSet r) {
+        for (ContigLoci l : r.loci()) {
+            for (int i = 0; i < l.size(); i++) {
+                if (l.purity(i) < 1) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+
+    /** Loci by length in bins of equal width on a log scale, coloured by period class and stacked. */
+    static JFreeChart lengths(ResultSet r) {
+        int minLen = Integer.MAX_VALUE, maxLen = 1;
+        for (ContigLoci l : r.loci()) {
+            for (int i = 0; i < l.size(); i++) {
+                minLen = Math.min(minLen, l.end(i) - l.start(i));
+                maxLen = Math.max(maxLen, l.end(i) - l.start(i));
+            }
+        }
+        if (minLen == Integer.MAX_VALUE) {
+            minLen = 10;
+        }
+        double x0 = Math.floor(Math.log10(minLen));
+        double x1 = Math.max(x0 + 1, Math.ceil(Math.log10(maxLen) * 10) / 10 + 0.05);
+        double dx = Math.max((x1 - x0) / 48, Math.log10(1 + 1 / Math.pow(10, x0)));
+        int nx = (int) Math.ceil((x1 - x0) / dx - 1e-9);
+        int k = PeriodClass.values().length;
+        long[][] n = new long[k][nx];
+        for (ContigLoci l : r.loci()) {
+            for (int i = 0; i < l.size(); i++) {
+                int bx = (int) Math.min(nx - 1, Math.max(0, (Math.log10(l.end(i) - l.start(i)) - x0) / dx));
+                n[PeriodClass.of(l.period(i)).ordinal()][bx]++;
+            }
+        }
+        org.jfree.data.xy.DefaultTableXYDataset ds = new org.jfree.data.xy.DefaultTableXYDataset();
+        for (PeriodClass pc : PeriodClass.values()) {
+            XYSeries s = new XYSeries(pc.label(), false, false);
+            for (int b = 0; b < nx; b++) {
+                s.add(x0 + (b + 0.5) * dx, n[pc.ordinal()][b]);
+            }
+            ds.addSeries(s);
+        }
+        ds.setIntervalWidth(dx);
+        NumberAxis x = valueAxis("locus length (bp, log scale)");
+        x.setNumberFormatOverride(Fmt.axis(true));
+        x.setTickUnit(new NumberTickUnit(1, Fmt.axis(true)));
+        x.setRange(x0, x1);
+        NumberAxis y = valueAxis("loci");
+        org.jfree.chart.renderer.xy.StackedXYBarRenderer br = new org.jfree.chart.renderer.xy.StackedXYBarRenderer(0.08);
+        br.setBarPainter(new org.jfree.chart.renderer.xy.StandardXYBarPainter());
+        br.setShadowVisible(false);
+        br.setDrawBarOutline(false);
+        for (PeriodClass pc : PeriodClass.values()) {
+            br.setSeriesPaint(pc.ordinal(), CLASS_COLOURS[pc.ordinal()]);
+        }
+        XYPlot p = new XYPlot(ds, x, y, br);
+        stylePlot(p);
+        JFreeChart chart = new JFreeChart(null, null, p, false);
+        chart.addLegend(classLegend());
         return style(chart);
     }
 

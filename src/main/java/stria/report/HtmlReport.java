@@ -247,11 +247,18 @@ public final class HtmlReport {
         }
 
         private void lengthPurity() {
-            out.println("<section><h2>Length and purity</h2>");
-            figure("Locus length against purity",
-                    "Loci counted in cells of length (log scale) and purity; darker cells hold more loci "
-                            + "(colour on a log scale).",
-                    Charts.svg(Charts.lengthPurity(r), Charts.WIDTH, 440, "purity"));
+            if (Charts.allExact(r)) {
+                out.println("<section><h2>Lengths</h2>");
+                figure("Loci by length", "Every locus is an exact repeat (purity 1), so only length is shown; "
+                                + "bins of equal width on a log scale.",
+                        Charts.svg(Charts.lengths(r), Charts.WIDTH, 400, "lengths"));
+            } else {
+                out.println("<section><h2>Length and purity</h2>");
+                figure("Locus length against purity",
+                        "Loci counted in cells of length (log scale) and purity; darker cells hold more loci "
+                                + "(colour on a log scale).",
+                        Charts.svg(Charts.lengthPurity(r), Charts.WIDTH, 440, "purity"));
+            }
             out.println("</section>");
         }
 

@@ -15,20 +15,20 @@ public final class SummaryTsv {
 
     /** One line per column, for the command's help. */
     public static final String COLUMN_HELP =
-            "Columns of --summary (tab separated, one header row, then the genome row, then one row per%n" +
-            "contig in input order):%n" +
-            "  level            genome or contig%n" +
-            "  name             contig name ('.' on the genome row)%n" +
-            "  bases_scanned    contig length, or the bases inside #region spans when the scan was limited%n" +
-            "  loci             number of loci%n" +
-            "  repeat_bases     bases inside at least one locus (overlaps count once)%n" +
-            "  repeat_share     repeat_bases / bases_scanned, 6 decimals%n" +
-            "  loci_p1, bases_p1              homopolymers (period 1)%n" +
-            "  loci_p2_6, bases_p2_6          micro (period 2-6)%n" +
-            "  loci_p7_99, bases_p7_99        mini (period 7-99)%n" +
-            "  loci_p100, bases_p100          satellite (period >= 100)%n" +
-            "Bases per period class count overlaps once within the class; a base in loci of two classes%n" +
-            "counts in both, so the class columns can add up to more than repeat_bases.%n";
+            "Columns of --summary (tab separated): a header row, the genome row, then one%n" +
+            "row per contig in input order.%n" +
+            "  level          genome or contig%n" +
+            "  name           contig name ('.' on the genome row)%n" +
+            "  bases_scanned  contig length, or its bases inside #region spans%n" +
+            "  loci           number of loci%n" +
+            "  repeat_bases   bases inside at least one locus (overlaps count once)%n" +
+            "  repeat_share   repeat_bases / bases_scanned, 6 decimals%n" +
+            "  loci_p1, bases_p1          homopolymers (period 1)%n" +
+            "  loci_p2_6, bases_p2_6      micro (period 2-6)%n" +
+            "  loci_p7_99, bases_p7_99    mini (period 7-99)%n" +
+            "  loci_p100, bases_p100      satellite (period >= 100)%n" +
+            "Within a class overlaps count once; a base in loci of two classes counts in%n" +
+            "both, so the class columns can add up to more than repeat_bases.%n";
 
     public static List<String> columns() {
         List<String> c = new ArrayList<>(List.of("level", "name", "bases_scanned", "loci", "repeat_bases",

@@ -140,15 +140,64 @@ public final class ShardMerge {
             if (format == Format.TSV) {
                 writeLine(out, parts.get(0).columns);
             }
+            Order order = new Order(parts.get(0).header.contigs());
             for (Part p : parts) {
-                copyData(p, out);
+                copyData(p, out, order);
             }
         } catch (IOException e) {
             throw new StriaException("cannot write merged result: " + AtomicOutputs.describe(e));
         }
     }
 
-    private static void copyData(Part p, OutputStream out) throws IOException {
+    /**
+     * Tracks the position of the last data line. Shards of one run own disjoint, ordered stretches, so a
+     * line that goes backwards, or repeats the line before it, means shards that do not fit together (an
+     * overlap would report loci twice); merge stops rather than write such a result.
+     */
+    private static final class Order {
+        private final java.util.Map<String, Integer> rank = new java.util.HashMap<>();
+        private int lastRank = -1;
+        private long lastStart = -1;
+        private String lastLine = "";
+        private String lastFile = "";
+
+        Order(List<ResultHeader.Contig> contigs) {
+            for (int i = 0; i < contigs.size(); i++) {
+                rank.put(contigs.get(i).name(), i);
+            }
+        }
+
+        void check(String file, String line) {
+            int t1 = line.indexOf('\t');
+            int t2 = t1 < 0 ? -1 : line.indexOf('\t', t1 + 1);
+            Integer r = t2 < 0 ? null : rank.get(line.substring(0, t1));
+            long start;
+            try {
+                start = r == null ? -1 : Long.parseLong(line.substring(t1 + 1, t2));
+            } catch (NumberFormatException e) {
+                start = -1;
+            }
+            if (r == null || start < 0) {
+                throw new StriaException(file + ": not a locus of this genome: " + abbreviate(line));
+            }
+            if (r < lastRank || (r == lastRank && start < lastStart) || line.equals(lastLine)) {
+                throw new StriaException(file + ": locus " + abbreviate(line) + " comes after "
+                        + abbreviate(lastLine) + (lastFile.equals(file) ? "" : " of " + lastFile)
+                        + "; these shard results overlap or are out of order");
+            }
+            lastRank = r;
+            lastStart = start;
+            lastLine = line;
+            lastFile = file;
+        }
+
+        private static String abbreviate(String line) {
+            String l = line.replace('\t', ' ');
+            return l.length() > 60 ? l.substring(0, 57) + "..." : l;
+        }
+    }
+
+    private static void copyData(Part p, OutputStream out, Order order) throws IOException {
         try (BufferedReader r = open(p.file)) {
             String line;
             boolean inHeader = true;
@@ -162,10 +211,19 @@ public final class ShardMerge {
                         continue; // the column row
                     }
                 }
-                writeLine(out, line);
+                order.check(p.file, line);
+                writeOrFail(out, line);
             }
         } catch (IOException | UncheckedIOException | htsjdk.samtools.SAMException e) {
             throw new StriaException("cannot read " + p.file + ": " + message(e));
+        }
+    }
+
+    private static void writeOrFail(OutputStream out, String line) {
+        try {
+            writeLine(out, line);
+        } catch (IOException e) {
+            throw new StriaException("cannot write merged result: " + AtomicOutputs.describe(e));
         }
     }
 

@@ -121,6 +121,56 @@ final class FastaFiles {
         }
     }
 
+    /**
+     * Writes a .fai for {@code text} the way samtools does: records without sequence are left out, line
+     * widths are taken from each record's first line. Needed where htsjdk's indexer refuses the input.
+     */
+    static void faidxLikeSamtools(Path fasta, byte[] text) {
+        StringBuilder fai = new StringBuilder();
+        int i = 0;
+        while (i < text.length) {
+            int eol = indexOf(text, (byte) '\n', i);
+            if (text[i] != '>') {
+                i = eol + 1;
+                continue;
+            }
+            int nameEnd = i + 1;
+            while (nameEnd < eol && text[nameEnd] != ' ' && text[nameEnd] != '\t' && text[nameEnd] != '\r') {
+                nameEnd++;
+            }
+            String name = new String(text, i + 1, nameEnd - i - 1, StandardCharsets.ISO_8859_1);
+            long offset = Math.min(eol + 1, text.length);
+            long length = 0;
+            int bpl = -1;
+            int bytesPerLine = -1;
+            i = eol + 1;
+            while (i < text.length && text[i] != '>') {
+                int end = indexOf(text, (byte) '\n', i);
+                int letters = end - i - (end > i && text[end - 1] == '\r' ? 1 : 0);
+                if (bpl < 0) {
+                    bpl = letters;
+                    bytesPerLine = end < text.length ? end + 1 - i : letters + 1;
+                }
+                length += letters;
+                i = end + 1;
+            }
+            if (length > 0) {
+                fai.append(name).append('\t').append(length).append('\t').append(offset).append('\t').append(bpl)
+                        .append('\t').append(bytesPerLine).append('\n');
+            }
+        }
+        write(fasta.resolveSibling(fasta.getFileName() + ".fai"), bytes(fai.toString()));
+    }
+
+    private static int indexOf(byte[] a, byte b, int from) {
+        for (int i = from; i < a.length; i++) {
+            if (a[i] == b) {
+                return i;
+            }
+        }
+        return a.length;
+    }
+
     static void gzindex(Path bgzf) {
         try {
             GZIIndex.createIndex(bgzf, true);

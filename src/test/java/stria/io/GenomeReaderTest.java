@@ -75,6 +75,7 @@ class GenomeReaderTest {
                 Arguments.of("no final newline", format(SAMPLE, 60, "\n", false)),
                 Arguments.of("CRLF without final line end", format(SAMPLE, 60, "\r\n", false)),
                 Arguments.of("tab before description", clean.replace(">ctg1 first", ">ctg1\tfirst")),
+                Arguments.of("byte order mark", "\u00ef\u00bb\u00bf" + clean),
                 Arguments.of("blank lines", "\n\n" + clean.replace("\n>", "\n\n\n>") + "\n\n"));
     }
 
@@ -131,6 +132,18 @@ class GenomeReaderTest {
         } finally {
             System.setIn(saved);
         }
+    }
+
+    @Test
+    void aPipeIsReadLikeStandardInput() throws Exception {
+        org.junit.jupiter.api.Assumptions.assumeTrue(Files.isExecutable(Path.of("/usr/bin/mkfifo")));
+        Path fifo = dir.resolve("pipe.fa");
+        assertThat(new ProcessBuilder("mkfifo", fifo.toString()).start().waitFor()).isZero();
+        Thread writer = new Thread(() -> write(fifo, gzip(bytes(format(SAMPLE)))));
+        writer.start();
+        List<String> warnings = new ArrayList<>();
+        assertThat(read(fifo, warnings)).isEqualTo(CLEAN);
+        writer.join();
     }
 
     @Test
@@ -199,6 +212,18 @@ class GenomeReaderTest {
     }
 
     @Test
+    void aFaiThatLeavesOutEmptyRecordsStillMatches() {
+        Path p = write(dir.resolve("e.fa"), bytes(">e0\n>a\nACGT\nAC\n>e desc\n>b\nGG\n>e2\n"));
+        // as samtools faidx writes it: the records without sequence are not listed
+        write(dir.resolve("e.fa.fai"), bytes("a\t6\t7\t4\t5\nb\t2\t26\t2\t3\n"));
+        List<String> warnings = new ArrayList<>();
+        assertThat(read(p, warnings)).containsExactly(Map.entry("a", "ACGTAC"), Map.entry("b", "GG"));
+        assertThat(warnings).containsExactly(p + ": skipped 3 records with no sequence (first: e0)");
+        write(dir.resolve("e.fa.fai"), bytes("a\t6\t7\t4\t5\nb\t2\t26\t2\t3\nc\t2\t30\t2\t3\n"));
+        refusedAtOpen(p, "e.fa.fai does not match", "record c");
+    }
+
+    @Test
     void aMatchingFaiIsUsedInsteadOfAPrePass() throws Exception {
         Path p = write(dir.resolve("g.fa"), bytes(format(SAMPLE)));
         FastaFiles.faidx(p);
@@ -225,6 +250,14 @@ class GenomeReaderTest {
                 .hasMessageStartingWith(p.toString())
                 .hasMessageContainingAll(parts)
                 .satisfies(e -> assertThat(e.getMessage()).doesNotContain("\n"));
+    }
+
+    /** Refused before any sequence is loaded, so that a command fails before it writes anything. */
+    private void refusedAtOpen(Path p, String... parts) {
+        assertThatThrownBy(() -> GenomeReader.open(p.toString(), w -> { }).close())
+                .isInstanceOf(StriaException.class)
+                .hasMessageStartingWith(p.toString())
+                .hasMessageContainingAll(parts);
     }
 
     @Test
@@ -326,7 +359,7 @@ class GenomeReaderTest {
         Path other = FastaFiles.writeBgzf(dir.resolve("other.fa.gz"), bytes(format(SAMPLE)));
         FastaFiles.faidx(other);
         Files.copy(dir.resolve("other.fa.gz.fai"), dir.resolve("g.fa.gz.fai"));
-        refused(p, "g.fa.gz.fai does not match", "record ctg1");
+        refusedAtOpen(p, "g.fa.gz.fai does not match", "record ctg1");
     }
 
     @Test
@@ -339,7 +372,7 @@ class GenomeReaderTest {
         int cut = text.indexOf(">c3");
         String shorter = text.substring(0, cut - 61) + text.substring(cut);
         FastaFiles.writeBgzf(p, bytes(shorter));
-        refused(p, "g.fa.gz.fai does not match");
+        refusedAtOpen(p, "g.fa.gz.fai does not match");
     }
 
     @Test
@@ -351,13 +384,13 @@ class GenomeReaderTest {
         assertThat(read(p)).hasSize(5);
         // same sizes of input, different content: block boundaries differ
         Files.copy(dir.resolve("other.fa.gz.gzi"), dir.resolve("g.fa.gz.gzi"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        refused(p, "g.fa.gz.gzi does not match");
+        refusedAtOpen(p, "g.fa.gz.gzi does not match");
         Path small = FastaFiles.writeBgzf(dir.resolve("small.fa.gz"), bytes(format(SAMPLE)));
         FastaFiles.gzindex(small);
         Files.copy(dir.resolve("small.fa.gz.gzi"), dir.resolve("g.fa.gz.gzi"), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
-        refused(p, "g.fa.gz.gzi does not match");
+        refusedAtOpen(p, "g.fa.gz.gzi does not match");
         write(dir.resolve("g.fa.gz.gzi"), bytes("garbage"));
-        refused(p, "g.fa.gz.gzi");
+        refusedAtOpen(p, "g.fa.gz.gzi");
     }
 
     @Test
@@ -365,13 +398,13 @@ class GenomeReaderTest {
         Path p = write(dir.resolve("g.fa"), bytes(format(SAMPLE)));
         FastaFiles.faidx(p);
         write(p, bytes(format(SAMPLE).replace(">ctg2", ">ctg2b")));
-        refused(p, "g.fa.fai does not match", "record ctg2");
+        refusedAtOpen(p, "g.fa.fai does not match", "record ctg2");
         write(p, bytes(format(SAMPLE) + ">extra\nACGT\n"));
-        refused(p, "g.fa.fai does not match", "more records");
+        refusedAtOpen(p, "g.fa.fai does not match", "more records");
         write(p, bytes(format(SAMPLE, 50, "\n", true)));
-        refused(p, "g.fa.fai does not match");
+        refusedAtOpen(p, "g.fa.fai does not match");
         write(dir.resolve("g.fa.fai"), bytes("not an index\n"));
-        refused(p, "g.fa.fai");
+        refusedAtOpen(p, "g.fa.fai");
     }
 
     @Test

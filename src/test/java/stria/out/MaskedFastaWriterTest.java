@@ -2,13 +2,11 @@ package stria.out;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
-import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -117,12 +115,7 @@ class MaskedFastaWriterTest {
 
     @Test
     void samtoolsIndexesTheBgzfOutputAndReturnsTheMaskedBases(@TempDir Path dir) throws Exception {
-        boolean require = Boolean.getBoolean("stria.requireTools");
-        boolean present = onPath("samtools");
-        if (require) {
-            assertThat(present).as("samtools on PATH (stria.requireTools=true)").isTrue();
-        }
-        assumeTrue(present, "samtools not on PATH");
+        stria.testutil.Cli.needTool("samtools");
 
         Random r = new Random(20261202L);
         List<byte[]> seqs = new ArrayList<>();
@@ -207,15 +200,6 @@ class MaskedFastaWriterTest {
             sb.append(lines[i]);
         }
         return sb.toString();
-    }
-
-    static boolean onPath(String tool) {
-        for (String d : System.getenv().getOrDefault("PATH", "").split(":")) {
-            if (!d.isEmpty() && Files.isExecutable(Path.of(d, tool))) {
-                return true;
-            }
-        }
-        return false;
     }
 
     private static String run(Path dir, String... cmd) throws IOException, InterruptedException {

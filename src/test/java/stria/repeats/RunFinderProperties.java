@@ -114,6 +114,42 @@ class RunFinderProperties {
         });
     }
 
+    /**
+     * Longer strings of longer motifs (up to 40 letters), some copies slightly changed: periods beyond the
+     * letters a suffix's packed context holds, and squares away from the string ends.
+     */
+    @Provide
+    Arbitrary<byte[]> longMotifs() {
+        return Arbitraries.longs().map(seed -> {
+            Random rnd = new Random(seed);
+            int n = 60 + rnd.nextInt(300);
+            int sigma = 2 + rnd.nextInt(3);
+            byte[] s = new byte[n];
+            int i = 0;
+            while (i < n) {
+                int p = 1 + rnd.nextInt(rnd.nextBoolean() ? 40 : 12);
+                byte[] motif = new byte[p];
+                for (int k = 0; k < p; k++) {
+                    motif[k] = (byte) rnd.nextInt(sigma);
+                }
+                int len = p * (1 + rnd.nextInt(4)) + rnd.nextInt(p);
+                for (int k = 0; k < len && i < n; k++) {
+                    s[i++] = rnd.nextInt(60) == 0 ? (byte) rnd.nextInt(sigma) : motif[k % p];
+                }
+            }
+            if (rnd.nextInt(4) == 0) {
+                s[rnd.nextInt(n)] = N;
+            }
+            return s;
+        });
+    }
+
+    @Property(tries = 400)
+    void equalsReferenceOnLongerStringsOfLongerMotifs(@ForAll("longMotifs") byte[] s,
+                                                     @ForAll @IntRange(min = 1, max = 60) int maxPeriod) {
+        assertThat(found(s, 0, s.length, maxPeriod, new RunFinder())).isEqualTo(referenceRuns(s, maxPeriod));
+    }
+
     @Property(tries = 2000)
     void equalsReferenceOnRandomStrings(@ForAll("uniform") byte[] s) {
         assertThat(found(s, 0, s.length, Integer.MAX_VALUE, new RunFinder())).isEqualTo(referenceRuns(s, Integer.MAX_VALUE));

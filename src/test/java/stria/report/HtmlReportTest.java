@@ -94,6 +94,18 @@ class HtmlReportTest {
                 .contains("1 contig outside the scanned regions is not listed");
     }
 
+    @Test
+    void exactResultsShowLengthsInsteadOfPurity() throws Exception {
+        var contigs = List.of(new stria.out.ResultHeader.Contig("a", 50_000));
+        Path exact = ResultFixtures.write(dir.resolve("exact.tsv"), ResultFixtures.header(contigs, null, List.of()),
+                List.of(ResultFixtures.row("a", 100, 124, "AC", 1.0), ResultFixtures.row("a", 500, 530, "AAG", 1.0)));
+        assertThat(render(exact)).contains("Loci by length").doesNotContain("Locus length against purity");
+        Path imperfect = ResultFixtures.write(dir.resolve("imperfect.tsv"), ResultFixtures.header(contigs, null,
+                List.of()), List.of(ResultFixtures.row("a", 100, 124, "AC", 1.0),
+                ResultFixtures.row("a", 500, 530, "AAG", 0.9)));
+        assertThat(render(imperfect)).contains("Locus length against purity").doesNotContain("Loci by length");
+    }
+
     private static String render(Path tsv) {
         ResultSet r = ResultReader.read(List.of(tsv.toString()));
         ByteArrayOutputStream bytes = new ByteArrayOutputStream();

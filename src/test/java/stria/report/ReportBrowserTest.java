@@ -43,8 +43,8 @@ class ReportBrowserTest {
                 chromium = Path.of(p);
             }
         }
-        if (Boolean.getBoolean("stria.requireTools")) {
-            assertThat(chromium).as("chromium installed (stria.requireTools=true)").isNotNull();
+        if (stria.testutil.Cli.requireTools()) {
+            assertThat(chromium).as("chromium installed (tools required: CI or stria.requireTools=true)").isNotNull();
         }
         assumeTrue(chromium != null, "chromium not installed");
     }

@@ -194,6 +194,21 @@ class ShardSetTest {
     }
 
     @Test
+    void refusesShardsWhoseLociOverlapOrGoBackwards() {
+        List<List<String>> overlap = List.of(BED.get(0), List.of(BED.get(0).get(1), BED.get(1).get(0)), List.of());
+        List<String> f = write("ov", overlap, null, 3, Compression.PLAIN);
+        assertRefused(f, "overlap or are out of order", f.get(1));
+
+        List<List<String>> backwards = List.of(List.of(BED.get(1).get(0)), List.of(BED.get(0).get(0)), List.of());
+        List<String> g = write("bw", backwards, null, 3, Compression.PLAIN);
+        assertRefused(g, "comes after", g.get(0));
+
+        List<List<String>> foreign = List.of(List.of("chrZ\t1\t20\tA\t1000\t.\t1\t19.00\tA"), List.of(), List.of());
+        List<String> h = write("fo", foreign, null, 3, Compression.PLAIN);
+        assertRefused(h, "not a locus of this genome", h.get(0));
+    }
+
+    @Test
     void collapsesShardNumbersIntoRanges() {
         assertThat(ShardMerge.ranges(List.of(1, 3, 4, 5, 9, 10))).isEqualTo("1, 3-5, 9-10");
         assertThat(ShardMerge.ranges(List.of(7))).isEqualTo("7");

@@ -1,0 +1,42 @@
+package stria.io;
+
+import java.util.List;
+
+/**
+ * Manual benchmark, not a test: times opening (pre-pass or index check) and loading every contig in
+ * file order. Usage: ReadSpeed FILE...
+ */
+public final class ReadSpeed {
+    private ReadSpeed() {
+    }
+
+    public static void main(String[] args) {
+        for (String file : args) {
+            for (int round = 0; round < 2; round++) {
+                java.lang.management.ThreadMXBean mx = java.lang.management.ManagementFactory.getThreadMXBean();
+                long c0 = mx.getCurrentThreadCpuTime();
+                long t0 = System.nanoTime();
+                try (GenomeReader r = GenomeReader.open(file, System.err::println)) {
+                    long t1 = System.nanoTime();
+                    long c1 = mx.getCurrentThreadCpuTime();
+                    List<ContigInfo> contigs = r.contigs();
+                    long bases = 0;
+                    long check = 0;
+                    for (ContigInfo c : contigs) {
+                        byte[] s = r.sequence(c);
+                        bases += s.length;
+                        check += s[s.length / 2];
+                    }
+                    long t2 = System.nanoTime();
+                    long c2 = mx.getCurrentThreadCpuTime();
+                    // wall time suffers when the machine is shared; CPU time of this thread is the honest figure
+                    System.out.printf("%s round %d: %d contigs, %d bases; open %.2f s wall, %.2f s cpu (%.0f MB/s);"
+                                    + " load %.2f s wall, %.2f s cpu (%.0f MB/s) [%d]%n",
+                            file, round, contigs.size(), bases, (t1 - t0) / 1e9, (c1 - c0) / 1e9,
+                            bases / 1e6 / ((c1 - c0) / 1e9), (t2 - t1) / 1e9, (c2 - c1) / 1e9,
+                            bases / 1e6 / ((c2 - c1) / 1e9), check);
+                }
+            }
+        }
+    }
+}
