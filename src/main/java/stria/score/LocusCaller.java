@@ -26,20 +26,28 @@ import stria.repeats.RunList;
  * <h2>How a locus is found</h2>
  * Seeds are exact runs of short period ({@link #SEED_MAX_PERIOD} or less, at least
  * {@link #SEED_EXTRA} bases longer than one copy) and, for periods from {@link RecurrenceSeeds#MIN_PERIOD}
- * up, positions whose short word recurs at a steady distance ({@link RecurrenceSeeds}). Each seed not
- * already inside a locus of its period gives a candidate: its first copy is the provisional motif, the
- * locus is extended both ways by aligning against the repeated motif ({@link WrapAligner}: wraparound
- * dynamic programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop),
- * the consensus is the majority letter at each phase of that alignment (reduced to its primitive root),
- * and a last alignment against the consensus from the left end gives the right end and the counts.
+ * up, positions whose short word recurs at a steady distance ({@link RecurrenceSeeds}): at 85 % identity
+ * long units have no exact runs at all. Seeds are taken in order of the end of their first copy, and a
+ * seed already inside a locus of its period (or, for recurrence seeds, of a period its distance is
+ * about a multiple of) adds nothing. Otherwise its first copy is the provisional motif and the locus is
+ * extended both ways by aligning against the repeated motif ({@link WrapAligner}: wraparound dynamic
+ * programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop). The
+ * copies other than the seed's then vote on the consensus: the majority letter at each phase, a phase
+ * most copies lack is dropped and a base most copies insert is added, so a seed copy carrying an indel
+ * does not fix the period; the result is reduced to its primitive root. A last alignment against the
+ * consensus from the left end gives the right end and the counts, and up to {@link #VOTE_ROUNDS} more
+ * rounds vote on that alignment while the score rises. Where the bases agree better at a neighbouring
+ * distance or about as well at a near-divisor of the period, that period gets a candidate of its own.
  * Seeds of one period separated by a few mismatches or a short indel end up in one candidate because
  * the extension runs through them.
  *
  * <h2>One locus, one period</h2>
  * Candidates that share bases compete: the higher alignment score less one point per motif base wins
  * (then the shorter period, then the earlier start); the charge for the motif keeps a long consensus
- * from winning by memorising the errors of a short repeat. A loser keeps its longest stretch not covered by a winner, realigned, if that still
- * passes the filters; this is how a compound repeat such as (CA)n(GA)m comes out as two adjacent loci.
+ * from winning by memorising the errors of a short repeat. A loser keeps its longest stretch not
+ * covered by a winner, realigned, if that still passes the filters; this is how a compound repeat such
+ * as (CA)n(GA)m comes out as two adjacent loci. Filters apply before the competition, so a locus that
+ * would not be reported never suppresses one that would.
  *
  * <h2>Why windows do not change the result</h2>
  * Every seed reaches {@link #reach} bases beyond its ends, and extension never leaves the union of
@@ -66,7 +74,11 @@ public final class LocusCaller {
         return settings;
     }
 
-    /** Whether an exact run takes part in scoring; the pipeline keeps only these in memory. */
+    /**
+     * Whether an exact run takes part in scoring; the pipeline keeps only these in memory. Only short
+     * periods: longer repeats are seeded from the sequence itself, so a few seeds per kilobase of random
+     * sequence remain.
+     */
     public boolean isSeed(int start, int end, int period) {
         return period <= SEED_MAX_PERIOD && period <= settings.maxPeriod() && end - start - period >= SEED_EXTRA;
     }
@@ -90,10 +102,15 @@ public final class LocusCaller {
         return RecurrenceSeeds.context(settings.maxPeriod()) + 2 * SEED_MAX_PERIOD + SEED_EXTRA + 8;
     }
 
+    /** Safe to call from several threads at once: each call works in buffers of its own. */
     public List<Locus> call(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
         if (from >= to) {
             return List.of();
         }
+        return new LocusCaller(settings).callAlone(seq, length, seeds, lo, hi, from, to);
+    }
+
+    private List<Locus> callAlone(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
         // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
         // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
         long pad = 4L * minimumContext();
@@ -316,7 +333,7 @@ public final class LocusCaller {
     /** Copies that vote on the provisional consensus: plenty to outvote errors, bounded work in satellites. */
     private static final int VOTE_COPIES = 24;
     /** Rounds of voting on the locus' own alignment; each must raise the score to be kept. */
-    private static final int VOTE_ROUNDS = 3;
+    static final int VOTE_ROUNDS = 3;
 
     private int[] clearCounts(int p) {
         if (counts.length < SLOTS * p) {
@@ -341,9 +358,14 @@ public final class LocusCaller {
         // the provisional consensus is voted on the first copies only; the final one on the whole locus
         aligner.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
         int right = aligner.bestI();
-        // an insertion of several bases is one vote for its boundary
+        // an insertion of several bases is one vote for its boundary; the seed copy, which the motif was
+        // read from, does not vote: with few copies it would outvote the others on its own errors
         final int[] lastIns = {-1};
         aligner.traceback((i, j, op) -> {
+            if (i <= p && op != WrapAligner.DEL || j <= p && op == WrapAligner.DEL) {
+                lastIns[0] = -1;
+                return;
+            }
             if (op == WrapAligner.DIAG) {
                 cnt[SLOTS * ((j - 1) % p) + Bases.code(seq[s + i - 1])]++;
             } else if (op == WrapAligner.DEL) {

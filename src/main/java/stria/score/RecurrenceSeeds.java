@@ -22,6 +22,11 @@ final class RecurrenceSeeds {
     static final int WINDOW = 64;
     /** Half of the window: 4.5 standard deviations above chance agreement in random DNA. */
     static final int AGREE = 32;
+    /**
+     * Longest distance looked at, whatever the largest period: beyond it almost every word has occurred
+     * before by chance, and units that long are outside what a tandem-repeat scan is for.
+     */
+    static final int MAX_DISTANCE = 10_000;
     /** Agreements of 16 needed before the full window is counted. */
     static final int QUICK = 8;
     /** Shorter periods are seeded by exact runs, which separate neighbouring short periods better. */
@@ -32,7 +37,7 @@ final class RecurrenceSeeds {
 
     /** Bases of sequence before a position that its seeds depend on. */
     static int context(int maxPeriod) {
-        return maxPeriod + WINDOW + K;
+        return Math.min(maxPeriod, MAX_DISTANCE) + WINDOW + K;
     }
 
     /**
@@ -44,6 +49,7 @@ final class RecurrenceSeeds {
         if (maxPeriod < MIN_PERIOD) {
             return;
         }
+        maxPeriod = Math.min(maxPeriod, MAX_DISTANCE);
         Arrays.fill(last, Integer.MIN_VALUE / 2);
         int kmer = 0;
         int valid = 0;
