@@ -198,45 +198,56 @@ public final class SuffixArray {
         }
     }
 
+    /** Longest LMS substring packed into an int: base-6 digits 1..5 fix both letters and length. */
+    private static final int PACKED_LETTERS = 11;
+
     /**
      * Names the sorted LMS substrings in {@code sa[0, m)} and leaves the reduced string in
-     * {@code sa[n - m, n)}; returns the number of names. Lengths and then names are parked at
-     * {@code sa[m + p / 2]}: LMS positions are at least two apart, so the slots never collide.
+     * {@code sa[n - m, n)}; returns the number of names. Each LMS position p first gets a key at
+     * {@code sa[m + p / 2]} (LMS positions are at least two apart, so the slots never collide), later
+     * replaced by its name. Most LMS substrings of DNA are short, and their key is the substring itself,
+     * so neighbours compare without reading the text at two random places; longer ones keep
+     * {@code -2 - length} and are compared letter by letter.
      */
     private static int nameLmsSubstringsBytes(byte[] t, int f, int n, int m, int[] sa) {
         Arrays.fill(sa, m, n, -1);
         int q = n;
+        long code = 0;
         boolean nextS = false;
         int nextC = t[f + n - 1];
         for (int i = n - 2; i >= 0; i--) {
             int c = t[f + i];
             boolean s = c < nextC || (c == nextC && nextS);
             if (nextS && !s) {
-                // the last LMS substring reaches the sentinel: its length exceeds what fits, so it is unique
-                sa[m + ((i + 1) >> 1)] = q - i;
+                int len = q - i;
+                // the last LMS substring reaches the sentinel: too long to pack and never equal to another
+                sa[m + ((i + 1) >> 1)] = q < n && len <= PACKED_LETTERS ? (int) code : -2 - len;
                 q = i + 1;
+                code = nextC + 1;
+            }
+            if (q - i <= PACKED_LETTERS) {
+                code = (c + 1) + 6 * code;
             }
             nextS = s;
             nextC = c;
         }
         int name = -1;
-        int prev = 0, prevLen = 0;
+        int prev = 0, prevKey = 0;
         for (int i = 0; i < m; i++) {
             int p = sa[i];
-            int len = sa[m + (p >> 1)];
-            boolean same = len == prevLen && p + len <= n && prev + len <= n && name >= 0;
-            if (same) {
-                for (int x = 0; x < len; x++) {
-                    if (t[f + p + x] != t[f + prev + x]) {
-                        same = false;
-                        break;
-                    }
+            int key = sa[m + (p >> 1)];
+            boolean same = name >= 0 && key == prevKey;
+            if (same && key < 0) {
+                int len = -2 - key;
+                same = p + len <= n && prev + len <= n;
+                for (int x = 0; same && x < len; x++) {
+                    same = t[f + p + x] == t[f + prev + x];
                 }
             }
             if (!same) {
                 name++;
                 prev = p;
-                prevLen = len;
+                prevKey = key;
             }
             sa[m + (p >> 1)] = name;
         }
