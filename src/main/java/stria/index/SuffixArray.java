@@ -18,6 +18,8 @@ import java.util.Arrays;
 public final class SuffixArray {
     /** Count and pointer arrays of all levels, level after level (the alphabet of level 1+ is its name count). */
     private int[] pool = new int[64];
+    /** LMS positions of the level-0 string, one bit each. */
+    private long[] lmsBits = new long[0];
 
     /** Suffix array of {@code codes[from, from + n)}; every code must lie in {@code [0, sigma)}. */
     public static int[] build(byte[] codes, int from, int n, int sigma) {
@@ -96,27 +98,24 @@ public final class SuffixArray {
             b[cnt + c]++;
         }
 
-        // stage 1: LMS positions at the ends of their buckets; n - 1 is L-type against the sentinel
+        // stage 1: LMS positions at the ends of their buckets
+        long[] lms = markLms(t, f, n);
+        int words = (n + 63) >>> 6;
         Arrays.fill(sa, 0, n, 0);
         bucketEnds(b, cnt, ptr, k);
         int m = 0;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                sa[--b[ptr + nextC]] = i + 1;
+        for (int w = 0; w < words; w++) {
+            for (long x = lms[w]; x != 0; x &= x - 1) {
+                int p = (w << 6) + Long.numberOfTrailingZeros(x);
+                sa[--b[ptr + t[f + p]]] = p;
                 m++;
             }
-            nextS = s;
-            nextC = c;
         }
 
         int names = 0;
         if (m > 1) {
             sortLmsSubstringsBytes(t, f, n, k, sa, b, cnt, ptr);
-            names = nameLmsSubstringsBytes(t, f, n, m, sa);
+            names = nameLmsSubstringsBytes(t, f, n, m, sa, lms);
             if (names < m) {
                 sortInts(sa, n - m, m, names, sa, 2 * k);
                 b = pool;
@@ -131,17 +130,11 @@ public final class SuffixArray {
 
         // stage 3: sorted LMS suffixes seed the final induction
         if (m > 0) {
-            int j = n;
-            boolean nS = false;
-            int nC = t[f + n - 1];
-            for (int i = n - 2; i >= 0; i--) {
-                int c = t[f + i];
-                boolean s = c < nC || (c == nC && nS);
-                if (nS && !s) {
-                    sa[--j] = i + 1;
+            int j = n - m;
+            for (int w = 0; w < words; w++) {
+                for (long x = lms[w]; x != 0; x &= x - 1) {
+                    sa[j++] = (w << 6) + Long.numberOfTrailingZeros(x);
                 }
-                nS = s;
-                nC = c;
             }
             for (int i = 0; i < m; i++) {
                 sa[i] = sa[n - m + sa[i]];
@@ -155,6 +148,37 @@ public final class SuffixArray {
             sa[--b[ptr + t[f + p]]] = p;
         }
         induceBytes(t, f, n, k, sa, b, cnt, ptr);
+    }
+
+    /**
+     * Marks the LMS positions (S-type after L-type; n - 1 is L-type against the sentinel). Types decide
+     * unpredictably on DNA, so they are computed with arithmetic instead of branches, once; the later
+     * stages walk the set bits.
+     */
+    private long[] markLms(byte[] t, int f, int n) {
+        int words = (n + 63) >>> 6;
+        if (lmsBits.length < words) {
+            lmsBits = new long[words];
+        }
+        long[] bits = lmsBits;
+        long word = 0;
+        int nextS = 0;
+        int nextC = t[f + n - 1];
+        for (int i = n - 2; i >= 0; i--) {
+            int c = t[f + i];
+            // S-type iff smaller than the next letter, or equal to it and the next is S-type
+            int s = ((c - nextC) >>> 31) | ((((c ^ nextC) - 1) >>> 31) & nextS);
+            int p = i + 1;
+            word |= (long) (nextS & ~s) << (p & 63);
+            if ((p & 63) == 0) {
+                bits[p >>> 6] = word;
+                word = 0;
+            }
+            nextS = s;
+            nextC = c;
+        }
+        bits[0] = word;
+        return bits;
     }
 
     /**
@@ -209,28 +233,20 @@ public final class SuffixArray {
      * so neighbours compare without reading the text at two random places; longer ones keep
      * {@code -2 - length} and are compared letter by letter.
      */
-    private static int nameLmsSubstringsBytes(byte[] t, int f, int n, int m, int[] sa) {
+    private static int nameLmsSubstringsBytes(byte[] t, int f, int n, int m, int[] sa, long[] lms) {
         Arrays.fill(sa, m, n, -1);
-        int q = n;
-        long code = 0;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                int len = q - i;
-                // the last LMS substring reaches the sentinel: too long to pack and never equal to another
-                sa[m + ((i + 1) >> 1)] = q < n && len <= PACKED_LETTERS ? (int) code : -2 - len;
-                q = i + 1;
-                code = nextC + 1;
+        int last = -1;
+        for (int w = 0, words = (n + 63) >>> 6; w < words; w++) {
+            for (long x = lms[w]; x != 0; x &= x - 1) {
+                int q = (w << 6) + Long.numberOfTrailingZeros(x);
+                if (last >= 0) {
+                    sa[m + (last >> 1)] = lmsKey(t, f, last, q);
+                }
+                last = q;
             }
-            if (q - i <= PACKED_LETTERS) {
-                code = (c + 1) + 6 * code;
-            }
-            nextS = s;
-            nextC = c;
         }
+        // the last LMS substring reaches the sentinel: never equal to another, whatever its length
+        sa[m + (last >> 1)] = -2 - (n - last + 1);
         int name = -1;
         int prev = 0, prevKey = 0;
         for (int i = 0; i < m; i++) {
@@ -257,6 +273,19 @@ public final class SuffixArray {
             }
         }
         return name + 1;
+    }
+
+    /** Key of the LMS substring t[p, q]: the packed letters when short enough, else -2 - length. */
+    private static int lmsKey(byte[] t, int f, int p, int q) {
+        int len = q - p + 1;
+        if (len > PACKED_LETTERS) {
+            return -2 - len;
+        }
+        int code = 0;
+        for (int a = f + q, stop = f + p; a >= stop; a--) {
+            code = (t[a] + 1) + 6 * code;
+        }
+        return code;
     }
 
     private static void induceBytes(byte[] t, int f, int n, int k, int[] sa, int[] b, int cnt, int ptr) {
