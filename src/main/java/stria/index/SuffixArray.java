@@ -18,7 +18,7 @@ import java.util.Arrays;
 public final class SuffixArray {
     /** Count and pointer arrays of all levels, level after level (the alphabet of level 1+ is its name count). */
     private int[] pool = new int[64];
-    /** LMS positions of the level-0 string, one bit each. */
+    /** LMS positions, one bit each, level after level like the buckets. */
     private long[] lmsBits = new long[0];
 
     /** Suffix array of {@code codes[from, from + n)}; every code must lie in {@code [0, sigma)}. */
@@ -117,8 +117,9 @@ public final class SuffixArray {
             sortLmsSubstringsBytes(t, f, n, k, sa, b, cnt, ptr);
             names = nameLmsSubstringsBytes(t, f, n, m, sa, lms);
             if (names < m) {
-                sortInts(sa, n - m, m, names, sa, 2 * k);
+                sortInts(sa, n - m, m, names, sa, 2 * k, words);
                 b = pool;
+                lms = lmsBits;
             } else {
                 for (int i = 0; i < m; i++) {
                     sa[sa[n - m + i]] = i;
@@ -156,11 +157,7 @@ public final class SuffixArray {
      * stages walk the set bits.
      */
     private long[] markLms(byte[] t, int f, int n) {
-        int words = (n + 63) >>> 6;
-        if (lmsBits.length < words) {
-            lmsBits = new long[words];
-        }
-        long[] bits = lmsBits;
+        long[] bits = lmsWords(0, n);
         long word = 0;
         int nextS = 0;
         int nextC = t[f + n - 1];
@@ -179,6 +176,37 @@ public final class SuffixArray {
         }
         bits[0] = word;
         return bits;
+    }
+
+    /** {@link #markLms} for a reduced string, into the words from {@code at} on (names are non-negative). */
+    private long[] markLmsInts(int[] t, int f, int n, int at) {
+        long[] bits = lmsWords(at, n);
+        long word = 0;
+        int nextS = 0;
+        int nextC = t[f + n - 1];
+        for (int i = n - 2; i >= 0; i--) {
+            int c = t[f + i];
+            int s = ((c - nextC) >>> 31) | ((((c ^ nextC) - 1) >>> 31) & nextS);
+            int p = i + 1;
+            word |= (long) (nextS & ~s) << (p & 63);
+            if ((p & 63) == 0) {
+                bits[at + (p >>> 6)] = word;
+                word = 0;
+            }
+            nextS = s;
+            nextC = c;
+        }
+        bits[at] = word;
+        return bits;
+    }
+
+    /** The bit words of one level, after those of the levels above it, which growing must keep. */
+    private long[] lmsWords(int at, int n) {
+        int need = at + ((n + 63) >>> 6);
+        if (lmsBits.length < need) {
+            lmsBits = Arrays.copyOf(lmsBits, Math.max(need, lmsBits.length + (lmsBits.length >> 1)));
+        }
+        return lmsBits;
     }
 
     /**
@@ -318,7 +346,7 @@ public final class SuffixArray {
     // ---------------------------------------------------------------- levels 1+: int text
 
     /** Same as {@link #sortBytes} on an int text; {@code t} may be {@code sa} itself, above {@code sa[n)}. */
-    private void sortInts(int[] t, int f, int n, int k, int[] sa, int base) {
+    private void sortInts(int[] t, int f, int n, int k, int[] sa, int base, int bitBase) {
         if (n == 1) {
             sa[0] = 0;
             return;
@@ -330,28 +358,26 @@ public final class SuffixArray {
             b[cnt + t[f + i]]++;
         }
 
+        int words = (n + 63) >>> 6;
+        long[] lms = markLmsInts(t, f, n, bitBase);
         Arrays.fill(sa, 0, n, 0);
         bucketEnds(b, cnt, ptr, k);
         int m = 0;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                sa[--b[ptr + nextC]] = i + 1;
+        for (int w = 0; w < words; w++) {
+            for (long x = lms[bitBase + w]; x != 0; x &= x - 1) {
+                int p = (w << 6) + Long.numberOfTrailingZeros(x);
+                sa[--b[ptr + t[f + p]]] = p;
                 m++;
             }
-            nextS = s;
-            nextC = c;
         }
 
         if (m > 1) {
             sortLmsSubstringsInts(t, f, n, k, sa, b, cnt, ptr);
-            int names = nameLmsSubstringsInts(t, f, n, m, sa);
+            int names = nameLmsSubstringsInts(t, f, n, m, sa, lms, bitBase);
             if (names < m) {
-                sortInts(sa, n - m, m, names, sa, base + 2 * k);
+                sortInts(sa, n - m, m, names, sa, base + 2 * k, bitBase + words);
                 b = pool;
+                lms = lmsBits;
             } else {
                 for (int i = 0; i < m; i++) {
                     sa[sa[n - m + i]] = i;
@@ -362,17 +388,11 @@ public final class SuffixArray {
         }
 
         if (m > 0) {
-            int j = n;
-            boolean nS = false;
-            int nC = t[f + n - 1];
-            for (int i = n - 2; i >= 0; i--) {
-                int c = t[f + i];
-                boolean s = c < nC || (c == nC && nS);
-                if (nS && !s) {
-                    sa[--j] = i + 1;
+            int j = n - m;
+            for (int w = 0; w < words; w++) {
+                for (long x = lms[bitBase + w]; x != 0; x &= x - 1) {
+                    sa[j++] = (w << 6) + Long.numberOfTrailingZeros(x);
                 }
-                nS = s;
-                nC = c;
             }
             for (int i = 0; i < m; i++) {
                 sa[i] = sa[n - m + sa[i]];
@@ -423,21 +443,21 @@ public final class SuffixArray {
         }
     }
 
-    private static int nameLmsSubstringsInts(int[] t, int f, int n, int m, int[] sa) {
+    /** Names as {@link #nameLmsSubstringsBytes} does, parking the lengths of the LMS substrings first. */
+    private static int nameLmsSubstringsInts(int[] t, int f, int n, int m, int[] sa, long[] lms, int bitBase) {
         Arrays.fill(sa, m, n, -1);
-        int q = n;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                sa[m + ((i + 1) >> 1)] = q - i;
-                q = i + 1;
+        int last = -1;
+        for (int w = 0, words = (n + 63) >>> 6; w < words; w++) {
+            for (long x = lms[bitBase + w]; x != 0; x &= x - 1) {
+                int q = (w << 6) + Long.numberOfTrailingZeros(x);
+                if (last >= 0) {
+                    sa[m + (last >> 1)] = q - last + 1;
+                }
+                last = q;
             }
-            nextS = s;
-            nextC = c;
         }
+        // reaching the sentinel makes it longer than what is left of the string, so never equal
+        sa[m + (last >> 1)] = n - last + 1;
         int name = -1;
         int prev = 0, prevLen = 0;
         for (int i = 0; i < m; i++) {
