@@ -10,10 +10,14 @@ import java.util.Arrays;
  * not part of the result, so {@code sa[r]} is the start of the r-th smallest suffix of
  * {@code codes[from, from + n)}, relative to {@code from}.
  *
- * <p>An instance keeps the bucket arrays of every recursion level between calls, so one thread sorting
- * many windows allocates only when a window needs more than any before it. The reduced string of each
- * level and its suffix array live in the output array itself, so the whole sort needs {@code n} ints
- * plus buckets. Instances are not thread safe.
+ * <p>Both induction passes carry the type of each entry's predecessor in the sign bit of the entry, so
+ * no type array is kept; LMS positions are marked once per level in a bitset. Short LMS substrings, the
+ * common case on DNA, are named by a key that packs their letters, not by comparing text.
+ *
+ * <p>An instance keeps the bucket arrays and bitsets of every recursion level between calls, so one
+ * thread sorting many windows allocates only when a window needs more than any before it. The reduced
+ * string of each level and its suffix array live in the output array itself, so the sort needs
+ * {@code n} ints plus buckets and about n/32 bytes of bits. Instances are not thread safe.
  */
 public final class SuffixArray {
     /** Count and pointer arrays of all levels, level after level (the alphabet of level 1+ is its name count). */
