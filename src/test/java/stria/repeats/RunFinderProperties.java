@@ -236,4 +236,57 @@ class RunFinderProperties {
         }
         assertThat(found(s, 0, s.length, 2000, finder)).isEqualTo(pieces);
     }
+
+    /**
+     * A reference that scales to long strings: for each period p, every maximal stretch where the letter p
+     * ahead is equal (and not BREAK) for at least p positions is a repetition with period p; it is a run of
+     * smallest period p unless a proper divisor of p is also a period (a smaller period of a stretch this
+     * long would make their gcd, a divisor of p, a period too).
+     */
+    static Set<String> perPeriodScan(byte[] s, int maxPeriod) {
+        Set<String> runs = new TreeSet<>();
+        int n = s.length;
+        for (int p = 1; p <= maxPeriod && 2 * p <= n; p++) {
+            int k = 0;
+            while (k + p < n) {
+                if (s[k] == N || s[k] != s[k + p]) {
+                    k++;
+                    continue;
+                }
+                int a = k;
+                while (k + p < n && s[k] != N && s[k] == s[k + p]) {
+                    k++;
+                }
+                int end = k + p;
+                if (k - a >= p && !hasDivisorPeriod(s, a, end, p)) {
+                    runs.add(a + "-" + end + "/" + p);
+                }
+            }
+        }
+        return runs;
+    }
+
+    private static boolean hasDivisorPeriod(byte[] s, int a, int end, int p) {
+        for (int d = 1; d < p; d++) {
+            if (p % d != 0) {
+                continue;
+            }
+            boolean period = true;
+            for (int x = a; x + d < end && period; x++) {
+                period = s[x] == s[x + d];
+            }
+            if (period) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    @Property(tries = 6)
+    void equalsPerPeriodScanOnLongPlantedDna(@ForAll long seed) {
+        Random rnd = new Random(seed);
+        byte[] s = plantedDna(rnd, 40_000 + rnd.nextInt(40_000));
+        int maxPeriod = 1 + rnd.nextInt(300);
+        assertThat(found(s, 0, s.length, maxPeriod, new RunFinder())).isEqualTo(perPeriodScan(s, maxPeriod));
+    }
 }
