@@ -9,7 +9,7 @@ import stria.io.Bases;
 /**
  * Finds every run (maximal repetition) of a stretch of DNA codes.
  *
- * <p>Per call: suffix array (SA-IS), LCP array (Phi), inverse suffix array, then the branching squares of
+ * <p>Per call: suffix array (SA-IS), LCP array and inverse suffix array (Phi), then the branching squares of
  * period at most maxPeriod from the LCP intervals ({@link BranchingSquares}). Every run of smallest
  * period p ends with exactly one branching square of length p, and a branching square whose root is
  * primitive belongs to the run of that period ending where it ends; so each run is one primitive
@@ -53,8 +53,8 @@ public final class RunFinder {
         }
         ensure(len);
         suffixArray.sort(codes, from, len, Bases.BREAK + 1, sa);
-        LcpArray.phi(codes, from, len, sa, lcp, work);
-        runsFromIndex(codes, from, len, sa, lcp, maxPeriod, out);
+        LcpArray.phiWithInverse(codes, from, len, sa, lcp, work);
+        runs(codes, from, len, sa, work, lcp, maxPeriod, out);
     }
 
     /**
@@ -73,6 +73,10 @@ public final class RunFinder {
         for (int r = 0; r < len; r++) {
             isa[sa[r]] = r;
         }
+        runs(codes, from, len, sa, isa, lcp, maxPeriod, out);
+    }
+
+    private void runs(byte[] codes, int from, int len, int[] sa, int[] isa, int[] lcp, int maxPeriod, RunList out) {
         branching.collect(codes, from, sa, isa, lcp, len, maxPeriod);
         branching.sortByEndThenLength(len, Math.min(maxPeriod, len));
         long[] sq = branching.squares();
