@@ -142,6 +142,7 @@ public final class GenomeScan {
             ScanUnit previous = null;
             byte[] seq = null;
             int maxPeriod = filters.maxPeriod();
+            WindowRuns.Keep keep = this::keep;
             for (ScanUnit u : units) {
                 if (previous == null || previous.source() != u.source() || previous.contig() != u.contig()) {
                     seq = u.source().sequence(u.contig());
@@ -157,7 +158,7 @@ public final class GenomeScan {
                     CompletableFuture<WindowRuns> f = w.windows[k];
                     pool.execute(() -> {
                         try {
-                            f.complete(WindowRuns.compute(s, ws, we, maxPeriod));
+                            f.complete(WindowRuns.compute(s, ws, we, maxPeriod, keep));
                         } catch (Throwable t) {
                             f.completeExceptionally(t);
                         }
@@ -310,9 +311,10 @@ public final class GenomeScan {
             throws InterruptedException {
         List<Future<WindowRuns>> fs = new ArrayList<>();
         int maxPeriod = filters.maxPeriod();
+        WindowRuns.Keep keep = this::keep;
         for (int k = 0; k < plan.count(); k++) {
             int ws = plan.start(k), we = plan.end(k);
-            fs.add(pool.submit(() -> WindowRuns.compute(seq, ws, we, maxPeriod)));
+            fs.add(pool.submit(() -> WindowRuns.compute(seq, ws, we, maxPeriod, keep)));
         }
         Stitcher st = new Stitcher(plan, sink);
         for (int k = 0; k < fs.size(); k++) {
@@ -323,6 +325,11 @@ public final class GenomeScan {
             }
         }
         st.finish();
+    }
+
+    /** The runs a window must keep besides those touching its ends: reported runs, or the scorer's seeds. */
+    private boolean keep(int s, int e, int p) {
+        return settings.exact() ? passes(s, e, p) : caller.isSeed(s, e, p);
     }
 
     private boolean passes(int s, int e, int p) {

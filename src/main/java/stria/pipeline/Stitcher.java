@@ -38,7 +38,9 @@ final class Stitcher {
             int p = openPeriod[i];
             int j = w.find(Math.max(a, w.start), p);
             if (j < 0) {
-                throw new IllegalStateException("run " + a + "/" + p + " lost between windows at " + w.start);
+                // the run starts inside this window and ends before its end, so the window saw it whole
+                // and its filter dropped it: the whole run fails the same filter
+                continue;
             }
             int e = w.runs.end(j);
             if (e == w.end && !last) {

@@ -8,6 +8,13 @@ import stria.repeats.RunList;
 final class WindowRuns {
     private static final ThreadLocal<RunFinder> FINDER = ThreadLocal.withInitial(RunFinder::new);
     private static final ThreadLocal<byte[][]> CODES = ThreadLocal.withInitial(() -> new byte[1][0]);
+    private static final ThreadLocal<RunList> FOUND = ThreadLocal.withInitial(() -> new RunList(1 << 16));
+
+    /** Which complete runs a window keeps; runs touching a window end are always kept for stitching. */
+    @FunctionalInterface
+    interface Keep {
+        boolean test(int start, int end, int period);
+    }
 
     final int start;
     final int end;
@@ -19,7 +26,12 @@ final class WindowRuns {
         this.runs = runs;
     }
 
-    static WindowRuns compute(byte[] seq, int start, int end, int maxPeriod) {
+    /**
+     * Runs of {@code seq[start, end)}. Only runs that touch a window end, or that {@code keep} accepts, are
+     * kept: a run that does not touch an end is seen whole here, so dropping it loses nothing the filter
+     * would have kept, and the window results stay small whatever the run density.
+     */
+    static WindowRuns compute(byte[] seq, int start, int end, int maxPeriod, Keep keep) {
         int len = end - start;
         byte[][] holder = CODES.get();
         if (holder[0].length < len) {
@@ -27,11 +39,22 @@ final class WindowRuns {
         }
         byte[] codes = holder[0];
         Bases.encode(seq, start, len, codes);
-        RunList local = new RunList(Math.max(16, len / 16));
+        RunList local = FOUND.get();
+        local.clear();
         FINDER.get().find(codes, 0, len, maxPeriod, local);
-        RunList shifted = new RunList(local.size());
+        int kept = 0;
         for (int i = 0; i < local.size(); i++) {
-            shifted.add(local.start(i) + start, local.end(i) + start, local.period(i));
+            if (local.start(i) == 0 || local.end(i) == len
+                    || keep.test(local.start(i) + start, local.end(i) + start, local.period(i))) {
+                kept++;
+            }
+        }
+        RunList shifted = new RunList(kept);
+        for (int i = 0; i < local.size(); i++) {
+            int s = local.start(i) + start, e = local.end(i) + start, p = local.period(i);
+            if (s == start || e == end || keep.test(s, e, p)) {
+                shifted.add(s, e, p);
+            }
         }
         shifted.sort();
         return new WindowRuns(start, end, shifted);

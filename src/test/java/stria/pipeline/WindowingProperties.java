@@ -113,6 +113,26 @@ class WindowingProperties {
     }
 
     @Property(tries = 40)
+    void filtersGiveTheFilteredRunsWhateverTheWindows(@ForAll long seed,
+                                                      @ForAll @IntRange(min = 2, max = 40) int maxPeriod,
+                                                      @ForAll @IntRange(min = 0, max = 60) int minLength,
+                                                      @ForAll @IntRange(min = 2, max = 5) int minCopies,
+                                                      @ForAll @IntRange(min = 1, max = 3) int threads) {
+        byte[] seq = genome(seed, 6000, maxPeriod);
+        RunList truth = oracle(seq, maxPeriod);
+        List<String> expected = new ArrayList<>();
+        for (int i = 0; i < truth.size(); i++) {
+            int len = truth.end(i) - truth.start(i);
+            if (len >= minLength && len >= minCopies * truth.period(i)) {
+                expected.add(truth.start(i) + "-" + truth.end(i) + "/" + truth.period(i));
+            }
+        }
+        ScanSettings s = new ScanSettings(true, new ScoreSettings(1, maxPeriod, minCopies, minLength, 0, 0), threads,
+                ScanSettings.minWindow(maxPeriod) + (int) (Math.abs(seed) % 300), List.of(), 0, 0, 1_000_000);
+        assertThat(scan(seq, s, List.of(new int[] {0, seq.length}))).isEqualTo(expected);
+    }
+
+    @Property(tries = 40)
     void splitStretchesGiveTheSliceOfTheWholeScan(@ForAll long seed,
                                                   @ForAll @IntRange(min = 1, max = 30) int maxPeriod,
                                                   @ForAll @IntRange(min = 1, max = 6) int pieces,
