@@ -224,9 +224,10 @@ public final class LocusCaller {
             if (p >= RecurrenceSeeds.MIN_PERIOD) {
                 active.add(cand);
             }
-            if (passes(cand)) {
-                cands.add(cand);
+            if (!passes(cand)) {
+                continue;
             }
+            cands.add(cand);
             // a seed copy carrying an indel, or a distance spanning several units, gives a period a little
             // off or a multiple; the period the locus' bases agree with best gets its own candidate
             int q = otherPeriod(seq, cand.start, cand.end, cand.period);
@@ -525,7 +526,7 @@ public final class LocusCaller {
         return k;
     }
 
-    private static final int AGREEMENT_SAMPLE = 1500;
+    private static final int AGREEMENT_SAMPLE = 600;
 
     /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
     private static double agreement(byte[] seq, int a, int b, int q) {
