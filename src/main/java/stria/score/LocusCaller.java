@@ -227,7 +227,7 @@ public final class LocusCaller {
             if (!passes(cand)) {
                 continue;
             }
-            cands.add(cand);
+            addSplit(seq, cand, compEnd[ci], cands);
             // a seed copy carrying an indel, or a distance spanning several units, gives a period a little
             // off or a multiple; the period the locus' bases agree with best gets its own candidate
             int q = otherPeriod(seq, cand.start, cand.end, cand.period);
@@ -239,7 +239,7 @@ public final class LocusCaller {
                         active.add(alt);
                     }
                     if (passes(alt)) {
-                        cands.add(alt);
+                        addSplit(seq, alt, compEnd[ci], cands);
                     }
                 }
             }
@@ -527,6 +527,97 @@ public final class LocusCaller {
     }
 
     private static final int AGREEMENT_SAMPLE = 600;
+
+    /**
+     * Adds the candidate, or the two loci it is made of when its copies change motif part way, as in
+     * (TGA)n(TGC)m: the alignment runs on through such a change (two letters of three still match), so
+     * the split is found afterwards. The split point is where separate majority consensuses for the two
+     * sides agree with the most bases; it is taken when that gains at least {@link #SPLIT_GAIN} of the
+     * locus' bases (and {@link #SPLIT_MIN_GAIN} bases) over one consensus and each side keeps two copies.
+     */
+    private void addSplit(byte[] seq, Cand k, int ce, List<Cand> out) {
+        int p = k.period;
+        int len = k.end - k.start;
+        if (len < 4 * p || len < 2 * settings.minLength() || k.purity() > 0.97) {
+            out.add(k);
+            return;
+        }
+        int[] left = new int[4 * p];
+        int[] right = new int[4 * p];
+        int[] code = new int[len];
+        for (int i = 0; i < len; i++) {
+            code[i] = Bases.code(seq[k.start + i]);
+            right[4 * k.phaseAt[i] + code[i]]++;
+        }
+        int single = 0;
+        for (int ph = 0; ph < p; ph++) {
+            single += max4(right, ph);
+        }
+        int sum = single; // sum over phases of the left and right majorities
+        int best = single;
+        int bestAt = -1;
+        int minSide = Math.max(2 * p, settings.minLength());
+        for (int i = 0; i < len - minSide; i++) {
+            int ph = k.phaseAt[i];
+            int before = max4(left, ph) + max4(right, ph);
+            left[4 * ph + code[i]]++;
+            right[4 * ph + code[i]]--;
+            sum += max4(left, ph) + max4(right, ph) - before;
+            if (i + 1 >= minSide && sum > best) {
+                best = sum;
+                bestAt = i + 1;
+            }
+        }
+        if (bestAt < 0 || best - single < Math.max(SPLIT_MIN_GAIN, SPLIT_GAIN * len)) {
+            out.add(k);
+            return;
+        }
+        // the two consensuses, counted again on each side of the chosen point
+        byte[] ml = new byte[p];
+        byte[] mr = new byte[p];
+        Arrays.fill(left, 0);
+        Arrays.fill(right, 0);
+        for (int i = 0; i < len; i++) {
+            (i < bestAt ? left : right)[4 * k.phaseAt[i] + code[i]]++;
+        }
+        for (int ph = 0; ph < p; ph++) {
+            ml[ph] = (byte) argmax4(left, ph, k.motif[ph]);
+            mr[ph] = (byte) argmax4(right, ph, k.motif[ph]);
+        }
+        if (primitiveRoot(ml) < p || primitiveRoot(mr) < p) {
+            out.add(k);
+            return;
+        }
+        int x = k.start + bestAt;
+        Cand l = align(seq, k.start, ml, p, k.phaseA, bestAt);
+        Cand r = align(seq, x, mr, p, k.phaseAt[bestAt], ce - x);
+        if (l == null || r == null || !passes(l) || !passes(r)) {
+            out.add(k);
+            return;
+        }
+        out.add(l);
+        out.add(r);
+    }
+
+    /** Share of a locus' bases a split must gain, and the fewest bases, so chance variation never splits. */
+    private static final double SPLIT_GAIN = 0.08;
+    private static final int SPLIT_MIN_GAIN = 6;
+
+    private static int max4(int[] c, int ph) {
+        int o = 4 * ph;
+        return Math.max(Math.max(c[o], c[o + 1]), Math.max(c[o + 2], c[o + 3]));
+    }
+
+    private static int argmax4(int[] c, int ph, int prefer) {
+        int o = 4 * ph;
+        int best = prefer;
+        for (int b = 0; b < 4; b++) {
+            if (c[o + b] > c[o + best]) {
+                best = b;
+            }
+        }
+        return best;
+    }
 
     /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
     private static double agreement(byte[] seq, int a, int b, int q) {
