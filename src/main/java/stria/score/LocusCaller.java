@@ -42,11 +42,14 @@ import stria.repeats.RunList;
  * the extension runs through them.
  *
  * <h2>One locus, one period</h2>
- * Candidates that share bases compete: the higher alignment score less one point per motif base wins
- * (then the shorter period, then the earlier start); the charge for the motif keeps a long consensus
- * from winning by memorising the errors of a short repeat. A loser keeps its longest stretch not
- * covered by a winner, realigned, if that still passes the filters; this is how a compound repeat such
- * as (CA)n(GA)m comes out as two adjacent loci. Filters apply before the competition, so a locus that
+ * Candidates that share bases compete. Each has a strength, its alignment score less one point per
+ * motif base: the charge for the motif keeps a long consensus from winning by memorising the errors of
+ * a short repeat. Among candidates linked by overlap, the set that overlaps at most at its edges and has
+ * the largest total strength wins (weighted interval scheduling), so two neighbours that explain their
+ * parts well beat one longer unit that mixes them. Winners are taken strongest first (ties: shorter
+ * period, earlier start); every other candidate keeps its longest stretch not covered by one taken
+ * before, realigned, if that still passes the filters; this is how a compound repeat such as
+ * (CA)n(GA)m comes out as two adjacent loci. Filters apply before the competition, so a locus that
  * would not be reported never suppresses one that would.
  *
  * <h2>Why windows do not change the result</h2>
@@ -719,10 +722,16 @@ public final class LocusCaller {
                 j++;
             }
             List<Cand> cluster = new ArrayList<>(cands.subList(i, j));
+            List<Cand> order = tiling(cluster);
             cluster.sort(BY_STRENGTH);
+            for (Cand k : cluster) {
+                if (!k.tiled) {
+                    order.add(k);
+                }
+            }
             List<Cand> taken = new ArrayList<>();
             Cand last = null;
-            for (Cand k : cluster) {
+            for (Cand k : order) {
                 if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
                     continue;
                 }
@@ -738,6 +747,70 @@ public final class LocusCaller {
         }
         return won;
     }
+
+    /**
+     * The set of candidates, overlapping at most at their edges, with the largest total strength
+     * (weighted interval scheduling), strongest first; each is marked as tiled. A locus that one longer
+     * period covers in one piece can still lose to two neighbours that explain its parts better, as with
+     * (GGAA)n(GCAA)m against a 12-base unit mixing both.
+     */
+    private static List<Cand> tiling(List<Cand> cluster) {
+        int n = cluster.size();
+        // edges may overlap by a few bases: extensions of neighbours often claim a base or two of each other
+        int[] es = new int[n];
+        int[] ee = new int[n];
+        Integer[] byEnd = new Integer[n];
+        for (int i = 0; i < n; i++) {
+            Cand k = cluster.get(i);
+            int tol = Math.min(EDGE_TOLERANCE, (k.end - k.start) / 8);
+            es[i] = k.start + tol;
+            ee[i] = k.end - tol;
+            byEnd[i] = i;
+            k.tiled = false;
+        }
+        java.util.Arrays.sort(byEnd, (x, y) -> ee[x] != ee[y] ? Integer.compare(ee[x], ee[y])
+                : BY_STRENGTH.compare(cluster.get(x), cluster.get(y)));
+        long[] best = new long[n + 1];
+        boolean[] use = new boolean[n + 1];
+        int[] prev = new int[n + 1];
+        for (int r = 1; r <= n; r++) {
+            int i = byEnd[r - 1];
+            // last candidate in end order that ends at or before this one starts
+            int lo = 0;
+            int hi = r - 1;
+            while (lo < hi) {
+                int mid = (lo + hi + 1) >>> 1;
+                if (ee[byEnd[mid - 1]] <= es[i]) {
+                    lo = mid;
+                } else {
+                    hi = mid - 1;
+                }
+            }
+            Cand k = cluster.get(i);
+            long with = best[lo] + Math.max(1, strength(k.score, k.period));
+            if (with > best[r - 1]) {
+                best[r] = with;
+                use[r] = true;
+                prev[r] = lo;
+            } else {
+                best[r] = best[r - 1];
+                prev[r] = r - 1;
+            }
+        }
+        List<Cand> out = new ArrayList<>();
+        for (int r = n; r > 0; r = prev[r]) {
+            if (use[r]) {
+                Cand k = cluster.get(byEnd[r - 1]);
+                k.tiled = true;
+                out.add(k);
+            }
+        }
+        out.sort(BY_STRENGTH);
+        return out;
+    }
+
+    /** Bases at each end of a locus that may overlap a neighbour in the tiling. */
+    private static final int EDGE_TOLERANCE = 3;
 
     /** The candidate itself if it overlaps nothing taken, else its longest free stretch realigned, or null. */
     private Cand free(byte[] seq, Cand k, List<Cand> taken) {
@@ -802,6 +875,7 @@ public final class LocusCaller {
         int insertions;
         int deletions;
         int[] phaseAt;
+        boolean tiled;
 
         double purity() {
             int cols = matches + mismatches + insertions + deletions;
