@@ -234,8 +234,15 @@ public final class LocusCaller {
             // a seed copy carrying an indel, or a distance spanning several units, gives a period a little
             // off or a multiple; the period the locus' bases agree with best gets its own candidate
             int q = otherPeriod(seq, cand.start, cand.end, cand.period);
-            if (q > 0) {
-                Cand alt = candidate(seq, cand.start, q, compStart[ci], compEnd[ci]);
+            int len = cand.end - cand.start;
+            boolean fewCopies = cand.period >= NEIGHBOUR_MIN_PERIOD && len < NEIGHBOUR_MAX_COPIES * cand.period;
+            for (int t = 0; t < 3; t++) {
+                // few copies of a long unit vote unreliably on its length: the neighbouring periods compete too
+                int qq = t == 0 ? q : fewCopies ? cand.period + (t == 1 ? -1 : 1) : -1;
+                if (qq <= 0 || t > 0 && qq == q) {
+                    continue;
+                }
+                Cand alt = candidate(seq, cand.start, qq, compStart[ci], compEnd[ci]);
                 if (alt != null) {
                     mark(covS, covE, alt.period, alt);
                     if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
@@ -621,6 +628,10 @@ public final class LocusCaller {
         }
         return best;
     }
+
+    /** Units this long or longer with fewer than this many copies also try the periods one off. */
+    private static final int NEIGHBOUR_MIN_PERIOD = 20;
+    private static final int NEIGHBOUR_MAX_COPIES = 10;
 
     /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
     private static double agreement(byte[] seq, int a, int b, int q) {
