@@ -37,7 +37,10 @@ import stria.repeats.RunList;
  * does not fix the period; the result is reduced to its primitive root. A last alignment against the
  * consensus from the left end gives the right end and the counts, and up to {@link #VOTE_ROUNDS} more
  * rounds vote on that alignment while the score rises. Where the bases agree better at a neighbouring
- * distance or about as well at a near-divisor of the period, that period gets a candidate of its own.
+ * distance or about as well at a near-divisor of the period, that period gets a candidate of its own;
+ * units of {@link #NEIGHBOUR_MIN_PERIOD} bases or more with few copies also try the periods one off,
+ * since a handful of copies votes unreliably on the length of a long unit. A candidate whose copies
+ * change motif part way, as in (TGA)n(TGC)m, is split in two.
  * Seeds of one period separated by a few mismatches or a short indel end up in one candidate because
  * the extension runs through them.
  *
