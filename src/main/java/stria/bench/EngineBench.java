@@ -33,6 +33,10 @@ public final class EngineBench {
         int window = args.length > 0 ? parseSize(args[0]) : 4_000_000;
         int rounds = args.length > 1 ? Integer.parseInt(args[1]) : 5;
         int maxPeriod = args.length > 2 ? Integer.parseInt(args[2]) : 2000;
+        if (window < 1 || rounds < 1 || maxPeriod < 1) {
+            System.err.println("usage: EngineBench [window >= 1, k/M suffix allowed [rounds >= 1 [maxPeriod >= 1]]]");
+            System.exit(2);
+        }
         byte[] genome = genome(GENOME, SEED);
 
         System.out.printf(Locale.ROOT, "genome %d letters, windows of %d, maxPeriod %d, %d rounds after 2 warm-up, "

@@ -39,6 +39,7 @@ public final class Main implements Runnable {
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new Main());
         cl.setExecutionExceptionHandler(Main::onError);
+        cl.setParameterExceptionHandler(Main::onUsageError);
         cl.setCaseInsensitiveEnumValuesAllowed(true);
         cl.setUsageHelpLongOptionsMaxWidth(28);
         return cl;
@@ -48,6 +49,18 @@ public final class Main implements Runnable {
     public void run() {
         throw new CommandLine.ParameterException(spec.commandLine(), "missing command: choose one of "
                 + String.join(", ", spec.subcommands().keySet()));
+    }
+
+    /** A usage error: the message, the synopsis of the command, and where to read more (exit 2). */
+    private static int onUsageError(CommandLine.ParameterException ex, String[] args) {
+        CommandLine cmd = ex.getCommandLine();
+        PrintWriter err = cmd.getErr();
+        err.println("stria: " + ex.getMessage());
+        CommandLine.UnmatchedArgumentException.printSuggestions(ex, err);
+        err.print(cmd.getHelp().fullSynopsis());
+        err.println("Try '" + cmd.getCommandSpec().qualifiedName() + " --help' for more information.");
+        err.flush();
+        return cmd.getCommandSpec().exitCodeOnInvalidInput();
     }
 
     private static int onError(Exception ex, CommandLine cl, CommandLine.ParseResult parsed) {

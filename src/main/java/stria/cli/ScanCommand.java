@@ -157,6 +157,7 @@ public final class ScanCommand implements Callable<Integer> {
                 }
             }
             units.addAll(units(readers, settings, spans));
+            refuseOutputsOverInputs();
             String bedPath = bed;
             if (bedPath == null && tsv == null) {
                 bedPath = "-";
@@ -310,6 +311,35 @@ public final class ScanCommand implements Callable<Integer> {
             }
         }
         return units;
+    }
+
+    /** An output path that names an input would destroy the genome being read: refuse it up front. */
+    private void refuseOutputsOverInputs() {
+        List<String> outs = new ArrayList<>();
+        for (String o : new String[] {bed, tsv, masked}) {
+            if (o != null && !o.equals("-")) {
+                outs.add(o);
+                outs.add(o + ".tbi");
+            }
+        }
+        for (String in : inputs) {
+            if (in.equals("-")) {
+                continue;
+            }
+            java.nio.file.Path ip = java.nio.file.Path.of(in);
+            for (String o : outs) {
+                java.nio.file.Path op = java.nio.file.Path.of(o);
+                boolean same = op.toAbsolutePath().normalize().equals(ip.toAbsolutePath().normalize());
+                try {
+                    same = same || (java.nio.file.Files.exists(op) && java.nio.file.Files.isSameFile(op, ip));
+                } catch (java.io.IOException ignored) {
+                    // cannot tell: the path comparison stands
+                }
+                if (same) {
+                    throw new StriaException("output " + o + " is the input " + in + ": choose another output name");
+                }
+            }
+        }
     }
 
     private record ShardTarget(GenomeReader reader, ContigInfo contig) {

@@ -28,7 +28,33 @@ public final class LcpArray {
         if (n == 0) {
             return;
         }
-        int[] phi = work;
+        permutedLcp(codes, from, n, sa, work);
+        for (int r = 0; r < n; r++) {
+            lcp[r] = work[sa[r]];
+        }
+        lcp[0] = 0;
+    }
+
+    /**
+     * Phi method that also leaves the inverse suffix array in {@code isa[0, n)}: the last step reads the
+     * LCP of suffix i from slot i and, in the same visit, writes the rank of i there.
+     */
+    public static void phiWithInverse(byte[] codes, int from, int n, int[] sa, int[] lcp, int[] isa) {
+        if (n == 0) {
+            return;
+        }
+        permutedLcp(codes, from, n, sa, isa);
+        for (int r = 0; r < n; r++) {
+            int i = sa[r];
+            lcp[r] = isa[i];
+            isa[i] = r;
+        }
+        lcp[0] = 0;
+    }
+
+    /** Leaves in {@code plcp[i]} the LCP of suffix i with the suffix ranked just before it. */
+    private static void permutedLcp(byte[] codes, int from, int n, int[] sa, int[] plcp) {
+        int[] phi = plcp;
         phi[sa[0]] = -1;
         for (int r = 1; r < n; r++) {
             phi[sa[r]] = sa[r - 1];
@@ -52,10 +78,6 @@ public final class LcpArray {
                 h--;
             }
         }
-        for (int r = 0; r < n; r++) {
-            lcp[r] = phi[sa[r]];
-        }
-        lcp[0] = 0;
     }
 
     /**

@@ -10,14 +10,20 @@ import java.util.Arrays;
  * not part of the result, so {@code sa[r]} is the start of the r-th smallest suffix of
  * {@code codes[from, from + n)}, relative to {@code from}.
  *
- * <p>An instance keeps the bucket arrays of every recursion level between calls, so one thread sorting
- * many windows allocates only when a window needs more than any before it. The reduced string of each
- * level and its suffix array live in the output array itself, so the whole sort needs {@code n} ints
- * plus buckets. Instances are not thread safe.
+ * <p>Both induction passes carry the type of each entry's predecessor in the sign bit of the entry, so
+ * no type array is kept; LMS positions are marked once per level in a bitset. Short LMS substrings, the
+ * common case on DNA, are named by a key that packs their letters, not by comparing text.
+ *
+ * <p>An instance keeps the bucket arrays and bitsets of every recursion level between calls, so one
+ * thread sorting many windows allocates only when a window needs more than any before it. The reduced
+ * string of each level and its suffix array live in the output array itself, so the sort needs
+ * {@code n} ints plus buckets and about n/32 bytes of bits. Instances are not thread safe.
  */
 public final class SuffixArray {
     /** Count and pointer arrays of all levels, level after level (the alphabet of level 1+ is its name count). */
     private int[] pool = new int[64];
+    /** LMS positions, one bit each, level after level like the buckets. */
+    private long[] lmsBits = new long[0];
 
     /** Suffix array of {@code codes[from, from + n)}; every code must lie in {@code [0, sigma)}. */
     public static int[] build(byte[] codes, int from, int n, int sigma) {
@@ -96,30 +102,28 @@ public final class SuffixArray {
             b[cnt + c]++;
         }
 
-        // stage 1: LMS positions at the ends of their buckets; n - 1 is L-type against the sentinel
+        // stage 1: LMS positions at the ends of their buckets
+        long[] lms = markLms(t, f, n);
+        int words = (n + 63) >>> 6;
         Arrays.fill(sa, 0, n, 0);
         bucketEnds(b, cnt, ptr, k);
         int m = 0;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                sa[--b[ptr + nextC]] = i + 1;
+        for (int w = 0; w < words; w++) {
+            for (long x = lms[w]; x != 0; x &= x - 1) {
+                int p = (w << 6) + Long.numberOfTrailingZeros(x);
+                sa[--b[ptr + t[f + p]]] = p;
                 m++;
             }
-            nextS = s;
-            nextC = c;
         }
 
         int names = 0;
         if (m > 1) {
             sortLmsSubstringsBytes(t, f, n, k, sa, b, cnt, ptr);
-            names = nameLmsSubstringsBytes(t, f, n, m, sa);
+            names = nameLmsSubstringsBytes(t, f, n, m, sa, lms);
             if (names < m) {
-                sortInts(sa, n - m, m, names, sa, 2 * k);
+                sortInts(sa, n - m, m, names, sa, 2 * k, words);
                 b = pool;
+                lms = lmsBits;
             } else {
                 for (int i = 0; i < m; i++) {
                     sa[sa[n - m + i]] = i;
@@ -131,17 +135,11 @@ public final class SuffixArray {
 
         // stage 3: sorted LMS suffixes seed the final induction
         if (m > 0) {
-            int j = n;
-            boolean nS = false;
-            int nC = t[f + n - 1];
-            for (int i = n - 2; i >= 0; i--) {
-                int c = t[f + i];
-                boolean s = c < nC || (c == nC && nS);
-                if (nS && !s) {
-                    sa[--j] = i + 1;
+            int j = n - m;
+            for (int w = 0; w < words; w++) {
+                for (long x = lms[w]; x != 0; x &= x - 1) {
+                    sa[j++] = (w << 6) + Long.numberOfTrailingZeros(x);
                 }
-                nS = s;
-                nC = c;
             }
             for (int i = 0; i < m; i++) {
                 sa[i] = sa[n - m + sa[i]];
@@ -155,6 +153,64 @@ public final class SuffixArray {
             sa[--b[ptr + t[f + p]]] = p;
         }
         induceBytes(t, f, n, k, sa, b, cnt, ptr);
+    }
+
+    /**
+     * Marks the LMS positions (S-type after L-type; n - 1 is L-type against the sentinel). Types decide
+     * unpredictably on DNA, so they are computed with arithmetic instead of branches, once; the later
+     * stages walk the set bits.
+     */
+    private long[] markLms(byte[] t, int f, int n) {
+        long[] bits = lmsWords(0, n);
+        long word = 0;
+        int nextS = 0;
+        int nextC = t[f + n - 1];
+        for (int i = n - 2; i >= 0; i--) {
+            int c = t[f + i];
+            // S-type iff smaller than the next letter, or equal to it and the next is S-type
+            int s = ((c - nextC) >>> 31) | ((((c ^ nextC) - 1) >>> 31) & nextS);
+            int p = i + 1;
+            word |= (long) (nextS & ~s) << (p & 63);
+            if ((p & 63) == 0) {
+                bits[p >>> 6] = word;
+                word = 0;
+            }
+            nextS = s;
+            nextC = c;
+        }
+        bits[0] = word;
+        return bits;
+    }
+
+    /** {@link #markLms} for a reduced string, into the words from {@code at} on (names are non-negative). */
+    private long[] markLmsInts(int[] t, int f, int n, int at) {
+        long[] bits = lmsWords(at, n);
+        long word = 0;
+        int nextS = 0;
+        int nextC = t[f + n - 1];
+        for (int i = n - 2; i >= 0; i--) {
+            int c = t[f + i];
+            int s = ((c - nextC) >>> 31) | ((((c ^ nextC) - 1) >>> 31) & nextS);
+            int p = i + 1;
+            word |= (long) (nextS & ~s) << (p & 63);
+            if ((p & 63) == 0) {
+                bits[at + (p >>> 6)] = word;
+                word = 0;
+            }
+            nextS = s;
+            nextC = c;
+        }
+        bits[at] = word;
+        return bits;
+    }
+
+    /** The bit words of one level, after those of the levels above it, which growing must keep. */
+    private long[] lmsWords(int at, int n) {
+        int need = at + ((n + 63) >>> 6);
+        if (lmsBits.length < need) {
+            lmsBits = Arrays.copyOf(lmsBits, Math.max(need, lmsBits.length + (lmsBits.length >> 1)));
+        }
+        return lmsBits;
     }
 
     /**
@@ -198,45 +254,48 @@ public final class SuffixArray {
         }
     }
 
+    /** Longest LMS substring packed into an int: base-6 digits 1..5 fix both letters and length. */
+    private static final int PACKED_LETTERS = 11;
+
     /**
      * Names the sorted LMS substrings in {@code sa[0, m)} and leaves the reduced string in
-     * {@code sa[n - m, n)}; returns the number of names. Lengths and then names are parked at
-     * {@code sa[m + p / 2]}: LMS positions are at least two apart, so the slots never collide.
+     * {@code sa[n - m, n)}; returns the number of names. Each LMS position p first gets a key at
+     * {@code sa[m + p / 2]} (LMS positions are at least two apart, so the slots never collide), later
+     * replaced by its name. Most LMS substrings of DNA are short, and their key is the substring itself,
+     * so neighbours compare without reading the text at two random places; longer ones keep
+     * {@code -2 - length} and are compared letter by letter.
      */
-    private static int nameLmsSubstringsBytes(byte[] t, int f, int n, int m, int[] sa) {
+    private static int nameLmsSubstringsBytes(byte[] t, int f, int n, int m, int[] sa, long[] lms) {
         Arrays.fill(sa, m, n, -1);
-        int q = n;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                // the last LMS substring reaches the sentinel: its length exceeds what fits, so it is unique
-                sa[m + ((i + 1) >> 1)] = q - i;
-                q = i + 1;
+        int last = -1;
+        for (int w = 0, words = (n + 63) >>> 6; w < words; w++) {
+            for (long x = lms[w]; x != 0; x &= x - 1) {
+                int q = (w << 6) + Long.numberOfTrailingZeros(x);
+                if (last >= 0) {
+                    sa[m + (last >> 1)] = lmsKey(t, f, last, q);
+                }
+                last = q;
             }
-            nextS = s;
-            nextC = c;
         }
+        // the last LMS substring reaches the sentinel: never equal to another, whatever its length
+        sa[m + (last >> 1)] = -2 - (n - last + 1);
         int name = -1;
-        int prev = 0, prevLen = 0;
+        int prev = 0, prevKey = 0;
         for (int i = 0; i < m; i++) {
             int p = sa[i];
-            int len = sa[m + (p >> 1)];
-            boolean same = len == prevLen && p + len <= n && prev + len <= n && name >= 0;
-            if (same) {
-                for (int x = 0; x < len; x++) {
-                    if (t[f + p + x] != t[f + prev + x]) {
-                        same = false;
-                        break;
-                    }
+            int key = sa[m + (p >> 1)];
+            boolean same = name >= 0 && key == prevKey;
+            if (same && key < 0) {
+                int len = -2 - key;
+                same = p + len <= n && prev + len <= n;
+                for (int x = 0; same && x < len; x++) {
+                    same = t[f + p + x] == t[f + prev + x];
                 }
             }
             if (!same) {
                 name++;
                 prev = p;
-                prevLen = len;
+                prevKey = key;
             }
             sa[m + (p >> 1)] = name;
         }
@@ -246,6 +305,19 @@ public final class SuffixArray {
             }
         }
         return name + 1;
+    }
+
+    /** Key of the LMS substring t[p, q]: the packed letters when short enough, else -2 - length. */
+    private static int lmsKey(byte[] t, int f, int p, int q) {
+        int len = q - p + 1;
+        if (len > PACKED_LETTERS) {
+            return -2 - len;
+        }
+        int code = 0;
+        for (int a = f + q, stop = f + p; a >= stop; a--) {
+            code = (t[a] + 1) + 6 * code;
+        }
+        return code;
     }
 
     private static void induceBytes(byte[] t, int f, int n, int k, int[] sa, int[] b, int cnt, int ptr) {
@@ -278,7 +350,7 @@ public final class SuffixArray {
     // ---------------------------------------------------------------- levels 1+: int text
 
     /** Same as {@link #sortBytes} on an int text; {@code t} may be {@code sa} itself, above {@code sa[n)}. */
-    private void sortInts(int[] t, int f, int n, int k, int[] sa, int base) {
+    private void sortInts(int[] t, int f, int n, int k, int[] sa, int base, int bitBase) {
         if (n == 1) {
             sa[0] = 0;
             return;
@@ -290,28 +362,26 @@ public final class SuffixArray {
             b[cnt + t[f + i]]++;
         }
 
+        int words = (n + 63) >>> 6;
+        long[] lms = markLmsInts(t, f, n, bitBase);
         Arrays.fill(sa, 0, n, 0);
         bucketEnds(b, cnt, ptr, k);
         int m = 0;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                sa[--b[ptr + nextC]] = i + 1;
+        for (int w = 0; w < words; w++) {
+            for (long x = lms[bitBase + w]; x != 0; x &= x - 1) {
+                int p = (w << 6) + Long.numberOfTrailingZeros(x);
+                sa[--b[ptr + t[f + p]]] = p;
                 m++;
             }
-            nextS = s;
-            nextC = c;
         }
 
         if (m > 1) {
             sortLmsSubstringsInts(t, f, n, k, sa, b, cnt, ptr);
-            int names = nameLmsSubstringsInts(t, f, n, m, sa);
+            int names = nameLmsSubstringsInts(t, f, n, m, sa, lms, bitBase);
             if (names < m) {
-                sortInts(sa, n - m, m, names, sa, base + 2 * k);
+                sortInts(sa, n - m, m, names, sa, base + 2 * k, bitBase + words);
                 b = pool;
+                lms = lmsBits;
             } else {
                 for (int i = 0; i < m; i++) {
                     sa[sa[n - m + i]] = i;
@@ -322,17 +392,11 @@ public final class SuffixArray {
         }
 
         if (m > 0) {
-            int j = n;
-            boolean nS = false;
-            int nC = t[f + n - 1];
-            for (int i = n - 2; i >= 0; i--) {
-                int c = t[f + i];
-                boolean s = c < nC || (c == nC && nS);
-                if (nS && !s) {
-                    sa[--j] = i + 1;
+            int j = n - m;
+            for (int w = 0; w < words; w++) {
+                for (long x = lms[bitBase + w]; x != 0; x &= x - 1) {
+                    sa[j++] = (w << 6) + Long.numberOfTrailingZeros(x);
                 }
-                nS = s;
-                nC = c;
             }
             for (int i = 0; i < m; i++) {
                 sa[i] = sa[n - m + sa[i]];
@@ -383,21 +447,21 @@ public final class SuffixArray {
         }
     }
 
-    private static int nameLmsSubstringsInts(int[] t, int f, int n, int m, int[] sa) {
+    /** Names as {@link #nameLmsSubstringsBytes} does, parking the lengths of the LMS substrings first. */
+    private static int nameLmsSubstringsInts(int[] t, int f, int n, int m, int[] sa, long[] lms, int bitBase) {
         Arrays.fill(sa, m, n, -1);
-        int q = n;
-        boolean nextS = false;
-        int nextC = t[f + n - 1];
-        for (int i = n - 2; i >= 0; i--) {
-            int c = t[f + i];
-            boolean s = c < nextC || (c == nextC && nextS);
-            if (nextS && !s) {
-                sa[m + ((i + 1) >> 1)] = q - i;
-                q = i + 1;
+        int last = -1;
+        for (int w = 0, words = (n + 63) >>> 6; w < words; w++) {
+            for (long x = lms[bitBase + w]; x != 0; x &= x - 1) {
+                int q = (w << 6) + Long.numberOfTrailingZeros(x);
+                if (last >= 0) {
+                    sa[m + (last >> 1)] = q - last + 1;
+                }
+                last = q;
             }
-            nextS = s;
-            nextC = c;
         }
+        // reaching the sentinel makes it longer than what is left of the string, so never equal
+        sa[m + (last >> 1)] = n - last + 1;
         int name = -1;
         int prev = 0, prevLen = 0;
         for (int i = 0; i < m; i++) {

@@ -18,6 +18,32 @@ enum Compression {
         this.label = label;
     }
 
+    /**
+     * The name of a compression stria does not read, from the magic bytes of the file, or null. Naming it
+     * turns "binary data" into a message that says what to do.
+     */
+    static String foreign(Path path) throws IOException {
+        byte[] head = new byte[6];
+        int n;
+        try (InputStream in = Files.newInputStream(path)) {
+            n = in.readNBytes(head, 0, head.length);
+        }
+        String h = new String(head, 0, n, java.nio.charset.StandardCharsets.ISO_8859_1);
+        if (h.startsWith("BZh")) {
+            return "bzip2";
+        }
+        if (h.startsWith("\u00fd7zXZ\u0000")) {
+            return "xz";
+        }
+        if (h.startsWith("\u0028\u00b5\u002f\u00fd")) {
+            return "zstd";
+        }
+        if (h.startsWith("PK\u0003\u0004")) {
+            return "zip";
+        }
+        return null;
+    }
+
     static Compression detect(Path path) throws IOException {
         try (InputStream in = new BufferedInputStream(Files.newInputStream(path), 1 << 16)) {
             in.mark(64);

@@ -12,6 +12,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.function.Consumer;
+import java.util.function.Function;
 
 import htsjdk.samtools.SAMException;
 import htsjdk.samtools.util.BlockCompressedInputStream;
@@ -28,7 +29,8 @@ import stria.StriaException;
  *
  * <p>Everything is checked when the file is opened (a pre-pass, or the .fai when one matches the file)
  * and every byte again when a sequence is loaded; all problems surface as {@link StriaException} with
- * the file named. Not thread-safe: one reader feeds one pipeline.
+ * the file named. Loading is serialised ({@link #sequence} is synchronized): one file is read by one
+ * cursor, and a pipeline asks for one contig at a time anyway.
  */
 public final class GenomeReader implements AutoCloseable {
     private final String display;
@@ -38,7 +40,7 @@ public final class GenomeReader implements AutoCloseable {
     private final RecordTable table;
     private final int[] record;
     private final List<ContigInfo> contigs;
-    private final String mismatch;
+    private final Function<String, String> mismatch;
 
     private GenomeReader(String display, Path path, Path spooled, InputCursor cursor, RecordTable table,
                          boolean fromIndex, Consumer<String> warn) {
@@ -48,8 +50,9 @@ public final class GenomeReader implements AutoCloseable {
         this.cursor = cursor;
         this.table = table;
         this.mismatch = fromIndex
-                ? display + ".fai does not match " + display + "; rebuild it (samtools faidx) or delete it"
-                : display + " changed while being read";
+                ? detail -> display + ".fai does not match " + display + " (" + detail
+                        + "); rebuild it (samtools faidx) or delete it"
+                : detail -> display + " changed while being read (" + detail + ")";
         Map<String, Long> seen = new HashMap<>();
         List<ContigInfo> list = new ArrayList<>();
         int[] rec = new int[table.size()];
@@ -109,6 +112,11 @@ public final class GenomeReader implements AutoCloseable {
             checkFile(path, display);
             Compression kind;
             try {
+                String foreign = Compression.foreign(path);
+                if (foreign != null) {
+                    throw new StriaException(display + ": " + foreign + "-compressed; stria reads plain, gzip and BGZF"
+                            + " FASTA: decompress it first" + (foreign.equals("zip") ? "" : " (" + foreign + " -dc)"));
+                }
                 kind = Compression.detect(path);
             } catch (IOException e) {
                 throw new StriaException(display + ": cannot read (" + InputCursor.oneLine(e) + ")", e);
@@ -219,7 +227,11 @@ public final class GenomeReader implements AutoCloseable {
     private static Path spool(Path source, String display) {
         Path tmp = null;
         try {
-            tmp = Files.createTempFile("stria-input-", ".fa");
+            // clusters point TMPDIR at node-local scratch; the JVM default ignores it
+            String env = System.getenv("TMPDIR");
+            Path where = env != null && !env.isEmpty() && Files.isDirectory(Path.of(env)) ? Path.of(env)
+                    : Path.of(System.getProperty("java.io.tmpdir"));
+            tmp = Files.createTempFile(where, "stria-input-", ".fa");
             tmp.toFile().deleteOnExit();
             if (source == null) {
                 Files.copy(System.in, tmp, StandardCopyOption.REPLACE_EXISTING);
@@ -231,8 +243,8 @@ public final class GenomeReader implements AutoCloseable {
             return tmp;
         } catch (IOException e) {
             deleteQuietly(tmp);
-            throw new StriaException(display + ": cannot copy the input to a temporary file ("
-                    + InputCursor.oneLine(e) + ")", e);
+            throw new StriaException(display + ": cannot copy the input to a temporary file " + tmp + " ("
+                    + InputCursor.oneLine(e) + "); set TMPDIR to a directory with more room", e);
         }
     }
 

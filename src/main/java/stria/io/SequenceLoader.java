@@ -1,5 +1,7 @@
 package stria.io;
 
+import java.util.function.Function;
+
 import stria.StriaException;
 
 /**
@@ -14,12 +16,12 @@ final class SequenceLoader {
     /**
      * @param headerLine line number of the record's header, or 0 when unknown (then it is counted only if
      *                   a message needs it)
-     * @param mismatch   what to call a record whose bases do not end where expected
+     * @param mismatch   the message for a record whose bases do not end where expected, given the detail
      */
     static byte[] load(InputCursor in, String display, String name, int length, long seqOffset, long headerLine,
-                       String mismatch) {
+                       Function<String, String> mismatch) {
         if (!in.moveTo(seqOffset)) {
-            throw new StriaException(mismatch + " (record " + name + " is past the end of the file)");
+            throw new StriaException(mismatch.apply("record " + name + " is past the end of the file"));
         }
         final boolean[] letter = FastaSyntax.LETTER;
         byte[] out = new byte[length];
@@ -28,15 +30,15 @@ final class SequenceLoader {
         boolean lineStart = true;
         while (n < length) {
             if (in.pos == in.lim && !in.refill()) {
-                throw new StriaException(mismatch + " (record " + name + " ends after " + n + " of " + length + " bases)");
+                throw new StriaException(mismatch.apply("record " + name + " ends after " + n + " of " + length + " bases"));
             }
             byte[] b = in.buf;
             int i = in.pos;
             int lim = in.lim;
             while (i < lim && n < length) {
                 if (lineStart && b[i] == '>') {
-                    throw new StriaException(mismatch + " (record " + name + " ends after " + n + " of " + length
-                            + " bases)");
+                    throw new StriaException(mismatch.apply("record " + name + " ends after " + n + " of " + length
+                            + " bases"));
                 }
                 lineStart = false;
                 int max = Math.min(lim, i + (length - n));
@@ -68,7 +70,7 @@ final class SequenceLoader {
         int c = in.peek();
         if (c >= 0 && c != '>') {
             if (FastaSyntax.LETTER[c]) {
-                throw new StriaException(mismatch + " (record " + name + " has more than " + length + " bases)");
+                throw new StriaException(mismatch.apply("record " + name + " has more than " + length + " bases"));
             }
             throw new StriaException(FastaSyntax.notALetter(display, name, lineOf(in, in.position()), c));
         }

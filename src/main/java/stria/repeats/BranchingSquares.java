@@ -135,6 +135,10 @@ final class BranchingSquares {
      * are tried backwards, or only the child with letter w[0] is tried, forwards.
      */
     private void interval(byte[] t, int f, int[] sa, int[] isa, int n, int l, int lb, int rb, int base, int end) {
+        if (rb - lb < SMALL) {
+            pairs(sa, l, lb, rb, base, end);
+            return;
+        }
         int bigStart = lb, bigEnd = end == base ? rb : bnd[base] - 1;
         for (int c = base; c < end; c++) {
             int s = bnd[c];
@@ -160,6 +164,38 @@ final class BranchingSquares {
             } else if (letter(t, f, sa, n, s, l) == first) {
                 forward(t, f, sa, isa, n, l, s, e, lb, rb);
                 return;
+            }
+        }
+    }
+
+    /** Intervals up to this many suffixes are searched pair by pair. */
+    private static final int SMALL = 4;
+
+    /**
+     * A small interval: two suffixes in different children whose starts differ by exactly l form a
+     * branching square. Most intervals on DNA hold two or three suffixes, and comparing their starts needs
+     * neither text nor context words. A suffix lies in fewer than SMALL such intervals (nested intervals
+     * grow), so this stays linear.
+     */
+    private void pairs(int[] sa, int l, int lb, int rb, int base, int end) {
+        for (int a = lb, ca = base; a < rb; a++) {
+            while (ca < end && bnd[ca] <= a) {
+                ca++;
+            }
+            int ia = sa[a];
+            for (int b = a + 1, cb = ca; b <= rb; b++) {
+                while (cb < end && bnd[cb] <= b) {
+                    cb++;
+                }
+                if (cb == ca) {
+                    continue;
+                }
+                int d = sa[b] - ia;
+                if (d == l) {
+                    add(ia + 2 * l, l);
+                } else if (d == -l) {
+                    add(sa[b] + 2 * l, l);
+                }
             }
         }
     }

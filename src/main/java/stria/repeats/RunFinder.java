@@ -9,7 +9,7 @@ import stria.io.Bases;
 /**
  * Finds every run (maximal repetition) of a stretch of DNA codes.
  *
- * <p>Per call: suffix array (SA-IS), LCP array (Phi), inverse suffix array, then the branching squares of
+ * <p>Per call: suffix array (SA-IS), LCP array and inverse suffix array (Phi), then the branching squares of
  * period at most maxPeriod from the LCP intervals ({@link BranchingSquares}). Every run of smallest
  * period p ends with exactly one branching square of length p, and a branching square whose root is
  * primitive belongs to the run of that period ending where it ends; so each run is one primitive
@@ -22,8 +22,9 @@ import stria.io.Bases;
  * a run of the whole stretch without BREAK lies in one BREAK-free piece and is a run there; a run of a
  * piece cannot be extended over the BREAK bounding it, since the letter one period inside is not BREAK.
  *
- * <p>An instance keeps its arrays (about 12 bytes per letter of the largest stretch so far, plus the
- * squares) for the next call: one thread, many windows. Not thread safe.
+ * <p>An instance keeps its arrays for the next call (one thread, many windows): suffix, LCP and inverse
+ * suffix arrays and a packed context word per rank, about 20 bytes per letter of the largest stretch so
+ * far, plus 16 bytes per branching square (roughly a quarter of the letters on DNA). Not thread safe.
  */
 public final class RunFinder {
     private final SuffixArray suffixArray = new SuffixArray();
@@ -52,8 +53,8 @@ public final class RunFinder {
         }
         ensure(len);
         suffixArray.sort(codes, from, len, Bases.BREAK + 1, sa);
-        LcpArray.phi(codes, from, len, sa, lcp, work);
-        runsFromIndex(codes, from, len, sa, lcp, maxPeriod, out);
+        LcpArray.phiWithInverse(codes, from, len, sa, lcp, work);
+        runs(codes, from, len, sa, work, lcp, maxPeriod, out);
     }
 
     /**
@@ -61,6 +62,9 @@ public final class RunFinder {
      * {@code codes[from, from + len)}. Public so the stages can be timed apart.
      */
     public void runsFromIndex(byte[] codes, int from, int len, int[] sa, int[] lcp, int maxPeriod, RunList out) {
+        if (from < 0 || len < 0 || from > codes.length - len || sa.length < len || lcp.length < len) {
+            throw new IllegalArgumentException("range " + from + "+" + len + " does not fit the arrays");
+        }
         if (len < 2 || maxPeriod < 1) {
             return;
         }
@@ -69,6 +73,10 @@ public final class RunFinder {
         for (int r = 0; r < len; r++) {
             isa[sa[r]] = r;
         }
+        runs(codes, from, len, sa, isa, lcp, maxPeriod, out);
+    }
+
+    private void runs(byte[] codes, int from, int len, int[] sa, int[] isa, int[] lcp, int maxPeriod, RunList out) {
         branching.collect(codes, from, sa, isa, lcp, len, maxPeriod);
         branching.sortByEndThenLength(len, Math.min(maxPeriod, len));
         long[] sq = branching.squares();
@@ -89,13 +97,12 @@ public final class RunFinder {
                 if (isPower(end, l, found)) {
                     continue;
                 }
-                int s = end - 2 * l;
-                int a = from + s - 1;
-                int lim = from;
-                while (a >= lim && codes[a] == codes[a + l]) {
+                // a branching square already ends its run; only the start is open
+                int a = from + end - 2 * l - 1;
+                while (a >= from && codes[a] == codes[a + l]) {
                     a--;
                 }
-                s = a + 1 - from;
+                int s = a + 1 - from;
                 if (found == endPeriod.length) {
                     endPeriod = Arrays.copyOf(endPeriod, found * 2);
                     endStart = Arrays.copyOf(endStart, found * 2);
@@ -110,6 +117,11 @@ public final class RunFinder {
         }
     }
 
+    /**
+     * Whether the root of the square of length l ending at end is a power: exactly when a run found at the
+     * same end has a period dividing l and spans the square, since a power's primitive root makes such a
+     * run end there (the square is branching) and is tried first, being shorter.
+     */
     private boolean isPower(int end, int l, int found) {
         for (int y = 0; y < found; y++) {
             int p = endPeriod[y];

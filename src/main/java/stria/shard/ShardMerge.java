@@ -43,10 +43,12 @@ public final class ShardMerge {
 
     private final List<Part> parts;
     private final Format format;
+    private final List<ResultHeader.Contig> contigs;
 
-    private ShardMerge(List<Part> parts, Format format) {
+    private ShardMerge(List<Part> parts, Format format, List<ResultHeader.Contig> contigs) {
         this.parts = parts;
         this.format = format;
+        this.contigs = contigs;
     }
 
     /**
@@ -59,7 +61,9 @@ public final class ShardMerge {
         }
         List<Part> parts = new ArrayList<>();
         for (String f : files) {
-            parts.add(readPart(f));
+            // one contig list is enough (equal #input lines mean equal lists), and a fragmented assembly split
+            // a thousand ways would otherwise hold a thousand copies of a long list
+            parts.add(readPart(f, parts.isEmpty()));
         }
         Part first = parts.get(0);
         for (Part p : parts) {
@@ -115,7 +119,7 @@ public final class ShardMerge {
         }
         List<Part> ordered = new ArrayList<>(parts);
         ordered.sort(Comparator.comparingInt(Part::k));
-        return new ShardMerge(ordered, format);
+        return new ShardMerge(ordered, format, first.header.contigs());
     }
 
     public int shards() {
@@ -128,7 +132,7 @@ public final class ShardMerge {
      */
     public ResultHeader header(String command) {
         ResultHeader h = parts.get(0).header;
-        return new ResultHeader(h.version(), command, h.settings(), h.contigs(), null, h.regions());
+        return new ResultHeader(h.version(), command, h.settings(), contigs, null, h.regions());
     }
 
     /** Writes the merged result (header, TSV column row, data lines of shards 1..n) to {@code out}. */
@@ -140,7 +144,7 @@ public final class ShardMerge {
             if (format == Format.TSV) {
                 writeLine(out, parts.get(0).columns);
             }
-            Order order = new Order(parts.get(0).header.contigs());
+            Order order = new Order(contigs);
             for (Part p : parts) {
                 copyData(p, out, order);
             }
@@ -233,7 +237,7 @@ public final class ShardMerge {
         out.write('\n');
     }
 
-    private static Part readPart(String file) {
+    private static Part readPart(String file, boolean keepContigs) {
         List<String> lines = new ArrayList<>();
         String firstOther = null;
         try (BufferedReader r = open(file)) {
@@ -283,6 +287,9 @@ public final class ShardMerge {
             throw new StriaException(file + " has a damaged #shard line: " + h.shard());
         }
         boolean tsv = firstOther != null && firstOther.startsWith(TSV_COLUMNS_START);
+        if (!keepContigs) {
+            h = new ResultHeader(h.version(), h.command(), h.settings(), List.of(), h.shard(), h.regions());
+        }
         return new Part(file, h, inputLine, tsv ? firstOther : null, tsv ? Format.TSV : Format.BED, k, n);
     }
 

@@ -34,8 +34,8 @@ import stria.testutil.Cli;
  * it prints on stderr and what it leaves on disk.
  */
 class InputErrorsTest {
-    /** Input handling does not depend on the mode; exact mode keeps these tests off the scorer. */
-    private static final String MODE = "--exact";
+    /** The default (imperfect) mode and the exact mode: both must see the same genome whatever its form. */
+    private static final List<List<String>> MODES = List.of(List.of(), List.of("--exact"));
     private static final String PREVIOUS = "output of an earlier run\n";
 
     @TempDir
@@ -131,9 +131,17 @@ class InputErrorsTest {
         return lines;
     }
 
-    private List<String> cleanOutput() throws IOException {
+    private static String[] scan(List<String> mode, String... rest) {
+        List<String> args = new ArrayList<>();
+        args.add("scan");
+        args.addAll(mode);
+        args.addAll(Arrays.asList(rest));
+        return args.toArray(String[]::new);
+    }
+
+    private List<String> cleanOutput(List<String> mode) throws IOException {
         Path clean = write("clean.fa", bytes(CLEAN));
-        Cli.Result r = Cli.stria(dir, "scan", MODE, clean.getFileName().toString());
+        Cli.Result r = Cli.stria(dir, scan(mode, clean.getFileName().toString()));
         assertThat(r.exit()).as(r.err()).isZero();
         assertThat(r.dataLines()).as("the planted repeats are found").hasSizeGreaterThan(10);
         return comparable(r.out());
@@ -143,7 +151,6 @@ class InputErrorsTest {
 
     @Test
     void everyAcceptedFormGivesTheCleanOutput() throws IOException {
-        List<String> want = cleanOutput();
         String lower = lowerSequences(CLEAN);
         StringBuilder mixed = new StringBuilder();
         Random rnd = new Random(1);
@@ -178,16 +185,19 @@ class InputErrorsTest {
         Path plainIndexed = write("indexed.fa", bytes(CLEAN));
         faidx(plainIndexed);
         inputs.add(plainIndexed);
-        for (Path in : inputs) {
-            Cli.Result r = Cli.stria(dir, "scan", MODE, in.getFileName().toString());
-            assertThat(r.exit()).as(in + ": " + r.err()).isZero();
-            assertThat(r.err()).as(in.toString()).isEmpty();
-            assertThat(comparable(r.out())).as(in.toString()).isEqualTo(want);
-        }
         Path gz = write("stdin.fa.gz", gzip(bytes(fasta(GENOME, 70, "\r\n", true, true))));
-        Cli.Result r = Cli.striaWithInput(dir, gz, "scan", MODE, "-");
-        assertThat(r.exit()).as(r.err()).isZero();
-        assertThat(comparable(r.out())).as("standard input").isEqualTo(want);
+        for (List<String> mode : MODES) {
+            List<String> want = cleanOutput(mode);
+            for (Path in : inputs) {
+                Cli.Result r = Cli.stria(dir, scan(mode, in.getFileName().toString()));
+                assertThat(r.exit()).as(mode + " " + in + ": " + r.err()).isZero();
+                assertThat(r.err()).as(mode + " " + in).isEmpty();
+                assertThat(comparable(r.out())).as(mode + " " + in).isEqualTo(want);
+            }
+            Cli.Result r = Cli.striaWithInput(dir, gz, scan(mode, "-"));
+            assertThat(r.exit()).as(r.err()).isZero();
+            assertThat(comparable(r.out())).as(mode + " standard input").isEqualTo(want);
+        }
     }
 
     private static String lowerSequences(String fasta) {
@@ -276,7 +286,7 @@ class InputErrorsTest {
         Path bed = write("previous.bed", bytes(PREVIOUS));
         List<String> before = listing();
 
-        Cli.Result r = Cli.stria(dir, "scan", MODE, "--bed", "previous.bed", "--tsv", "new.tsv", name);
+        Cli.Result r = Cli.stria(dir, "scan", "--bed", "previous.bed", "--tsv", "new.tsv", name);
 
         assertThat(r.exit()).as(label + ": " + r.err()).isEqualTo(1);
         assertOneLine(r.err(), label);
@@ -291,7 +301,7 @@ class InputErrorsTest {
         Path p = write("locked.fa", bytes(CLEAN));
         Files.setPosixFilePermissions(p, java.util.Set.of());
         Assumptions.assumeFalse(Files.isReadable(p), "running as root: file permissions are not enforced");
-        Cli.Result r = Cli.stria(dir, "scan", MODE, "locked.fa");
+        Cli.Result r = Cli.stria(dir, "scan", "locked.fa");
         assertThat(r.exit()).isEqualTo(1);
         assertOneLine(r.err(), "unreadable");
         assertThat(r.err()).contains("locked.fa");
@@ -353,10 +363,20 @@ class InputErrorsTest {
     void unknownRegionIsAnInputError() throws IOException {
         write("g.fa", bytes(CLEAN));
         for (String region : List.of("contig9", "contig1:1-999999")) {
-            Cli.Result r = Cli.stria(dir, "scan", MODE, "--region", region, "g.fa");
+            Cli.Result r = Cli.stria(dir, "scan", "--region", region, "g.fa");
             assertThat(r.exit()).as(region + ": " + r.err()).isEqualTo(1);
             assertOneLine(r.err(), region);
             assertThat(r.err()).contains(region);
+        }
+    }
+
+    @Test
+    void anOutputPathThatIsAnInputIsRefused() throws IOException {
+        Path genome = write("g.fa", bytes(CLEAN));
+        for (String option : List.of("--bed", "-o", "--tsv")) {
+            Cli.Result r = Cli.stria(dir, "scan", option, "g.fa", "g.fa");
+            assertThat(r.exit()).as(option + ": " + r.err()).isNotZero();
+            assertThat(Files.readString(genome, StandardCharsets.ISO_8859_1)).as(option).isEqualTo(CLEAN);
         }
     }
 
@@ -375,7 +395,7 @@ class InputErrorsTest {
         for (String target : targets) {
             for (String option : List.of("--bed", "--tsv")) {
                 List<String> before = listing();
-                Cli.Result r = Cli.stria(dir, "scan", MODE, option, target, "g.fa");
+                Cli.Result r = Cli.stria(dir, "scan", option, target, "g.fa");
                 assertThat(r.exit()).as(target + ": " + r.err()).isEqualTo(1);
                 assertOneLine(r.err(), target);
                 assertThat(r.err()).contains(target);
@@ -391,7 +411,7 @@ class InputErrorsTest {
     // ---- interruption ----
 
     @Test
-    void sigtermMidRunLeavesNothingBehind() throws Exception {
+    void sigtermOrSigintMidRunLeavesNothingBehind() throws Exception {
         Path genome = dir.resolve("big.fa");
         Random rnd = new Random(3);
         try (OutputStream out = new java.io.BufferedOutputStream(Files.newOutputStream(genome), 1 << 20)) {
@@ -409,10 +429,11 @@ class InputErrorsTest {
         }
         Path tmp = Files.createDirectory(dir.resolve("tmp"));
         Files.write(dir.resolve("previous.bed"), bytes(PREVIOUS));
-        // once from the file, once from standard input (spooled to a temporary file that must go too)
-        for (boolean stdin : new boolean[] {false, true}) {
+        // from the file, from standard input (spooled to a temporary file that must go too), and Ctrl-C
+        for (String run : List.of("file", "stdin", "interrupt")) {
+            boolean stdin = run.equals("stdin");
             List<String> before = listing();
-            ProcessBuilder pb = new ProcessBuilder(Cli.projectDir().resolve("scripts/stria").toString(), "scan", MODE,
+            ProcessBuilder pb = new ProcessBuilder(Cli.projectDir().resolve("scripts/stria").toString(), "scan",
                     "--threads", "1", "--bed", "previous.bed", "--tsv", "new.tsv", stdin ? "-" : "big.fa")
                     .directory(dir.toFile())
                     .redirectOutput(ProcessBuilder.Redirect.DISCARD)
@@ -422,6 +443,7 @@ class InputErrorsTest {
             }
             pb.environment().put("STRIA_CLASSPATH", System.getProperty("java.class.path"));
             pb.environment().put("STRIA_JAVA_OPTS", "-Djava.io.tmpdir=" + tmp);
+            pb.environment().put("TMPDIR", tmp.toString());
             Process p = pb.start();
             long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(120);
             while (!temporaryOutputExists() && p.isAlive() && System.nanoTime() < deadline) {
@@ -431,7 +453,12 @@ class InputErrorsTest {
                     .isTrue();
             assertThat(temporaryOutputExists()).as("temporary outputs appeared").isTrue();
             Thread.sleep(300);
-            p.destroy();
+            if (run.equals("interrupt")) {
+                // the launcher execs java, so the pid is the JVM's: SIGINT is what Ctrl-C sends
+                assertThat(new ProcessBuilder("kill", "-INT", Long.toString(p.pid())).start().waitFor()).isZero();
+            } else {
+                p.destroy();
+            }
             assertThat(p.waitFor(60, TimeUnit.SECONDS)).as("exits after SIGTERM").isTrue();
             assertThat(p.exitValue()).as("interrupted, not successful").isNotZero();
             assertThat(listing()).as("outputs after SIGTERM").isEqualTo(before);

@@ -95,6 +95,46 @@ class SlurmArrayTest {
         assertThat(dir.resolve("never.bed")).doesNotExist();
     }
 
+    @Test
+    void aListOfGenomesGetsOneArrayAndOneMergeEach() throws IOException, InterruptedException {
+        List<String> list = new ArrayList<>(List.of("# invented genomes, one a line"));
+        for (String name : List.of("alpha", "beta")) {
+            Path fa = dir.resolve(name + ".fa.gz");
+            int made = new CommandLine(new GenomeSimulator()).execute("--out", fa.toString(), "--truth",
+                    dir.resolve(name + ".truth.tsv").toString(), "--seed", String.valueOf(name.length()), "--size",
+                    "300000", "--contigs", "2", "--satellites", "0", "--prefix", name);
+            assertThat(made).isZero();
+            list.add(name + " " + fa);
+        }
+        Files.write(dir.resolve("genomes.txt"), list);
+
+        List<String> cmd = List.of(Cli.projectDir().resolve("scripts/slurm/submit-genomes.sh").toString(),
+                "genomes.txt", "--out", "results", "--work", "work", "--shard-bases", "200000", "--formats", "bed,tsv",
+                "--sbatch", "--job-name=" + jobName, "--", "-q", "--threads", "1");
+        Cli.Result r = Cli.exec(dir, null, cmd);
+        assertThat(r.exit()).as(r.out() + r.err()).isZero();
+        assertThat(r.out()).contains("== alpha").contains("== beta").contains("2 shards").contains("submitted 2");
+
+        long deadline = System.nanoTime() + TimeUnit.MINUTES.toNanos(WAIT_MINUTES);
+        while (!Cli.exec(dir, null, List.of("squeue", "-h", "--name=" + jobName)).out().isBlank()) {
+            if (System.nanoTime() > deadline) {
+                Cli.exec(dir, null, List.of("scancel", "--name=" + jobName));
+                throw new AssertionError("jobs not done within " + WAIT_MINUTES + " minutes; cancelled " + jobName);
+            }
+            Thread.sleep(2000);
+        }
+        for (String name : List.of("alpha", "beta")) {
+            Cli.Result single = Cli.stria(dir, "scan", "-q", "--threads", "1", "--bed", name + ".bed", "--tsv",
+                    name + ".tsv", dir.resolve(name + ".fa.gz").toString());
+            assertThat(single.exit()).as(single.err()).isZero();
+            assertThat(ShardMergeTest.dataSection(ShardMergeTest.read(dir.resolve("results/" + name + ".bed.gz"))))
+                    .as(name).isEqualTo(ShardMergeTest.dataSection(Files.readAllBytes(dir.resolve(name + ".bed"))));
+            assertThat(ShardMergeTest.dataSection(ShardMergeTest.read(dir.resolve("results/" + name + ".tsv.gz"))))
+                    .as(name).isEqualTo(ShardMergeTest.dataSection(Files.readAllBytes(dir.resolve(name + ".tsv"))));
+            assertThat(dir.resolve("results/" + name + ".bed.gz.tbi")).exists();
+        }
+    }
+
     private Cli.Result submit(String... args) {
         return submitWith(Map.of(), args);
     }

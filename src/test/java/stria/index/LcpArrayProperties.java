@@ -42,6 +42,19 @@ class LcpArrayProperties {
         assertThat(lcp).containsExactly(naiveLcp(s, sa));
     }
 
+    @Property(tries = 1000)
+    void phiWithInverseEqualsNaiveAndLeavesTheInverse(@ForAll("strings") byte[] s) {
+        int n = s.length;
+        int[] sa = SuffixArrayProperties.naiveSuffixArray(s, 0, n);
+        int[] lcp = new int[n];
+        int[] isa = new int[n];
+        LcpArray.phiWithInverse(s, 0, n, sa, lcp, isa);
+        assertThat(lcp).containsExactly(naiveLcp(s, sa));
+        for (int r = 0; r < n; r++) {
+            assertThat(isa[sa[r]]).isEqualTo(r);
+        }
+    }
+
     @Property(tries = 1500)
     void kasaiEqualsNaiveAndLeavesTheInverse(@ForAll("strings") byte[] s) {
         int n = s.length;

@@ -294,6 +294,14 @@ class GenomeReaderTest {
     }
 
     @Test
+    void otherCompressionsAreNamed() {
+        refused(write(dir.resolve("g.fa.xz"), bytes("\u00fd7zXZ\u0000\u0000\u0004rest")), "xz-compressed", "xz -dc");
+        refused(write(dir.resolve("g.fa.bz2"), bytes("BZh91AY&SYrest")), "bzip2-compressed");
+        refused(write(dir.resolve("g.fa.zst"), bytes("\u0028\u00b5\u002f\u00fdrest")), "zstd-compressed");
+        refused(write(dir.resolve("g.zip"), bytes("PK\u0003\u0004rest")), "zip-compressed");
+    }
+
+    @Test
     void textWithoutHeader() {
         refused(write(dir.resolve("seq.txt"), bytes("ACGTACGT\nACGT\n")), "not a FASTA file: line 1");
         refused(write(dir.resolve("notes.txt"), bytes("\nsome notes about a genome\n>a\nACGT\n")), "line 2");
@@ -449,6 +457,25 @@ class GenomeReaderTest {
                     .isInstanceOf(StriaException.class)
                     .hasMessage(p + ": record ctg4, line " + line
                             + ": 'J' is not a nucleotide letter (IUPAC codes ACGTNRYSWKMBDHV only)");
+        }
+    }
+
+    @Test
+    void aFileReplacedAfterOpeningIsRefusedWhenLoaded() throws Exception {
+        Random rnd = new Random(2);
+        List<FastaFiles.Rec> recs = new ArrayList<>();
+        for (int i = 0; i < 4; i++) {
+            // larger than the read buffer, so that later records come from the disk again
+            recs.add(new FastaFiles.Rec("big" + i, "", FastaFiles.letters(rnd, 600_000)));
+        }
+        Path p = write(dir.resolve("g.fa"), bytes(format(recs)));
+        try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
+            Files.write(p, bytes(format(recs, 50, "\n", true)));
+            assertThatThrownBy(() -> {
+                for (ContigInfo c : r.contigs()) {
+                    r.sequence(c);
+                }
+            }).isInstanceOf(StriaException.class).hasMessageStartingWith(p + " changed while being read");
         }
     }
 

@@ -177,4 +177,116 @@ class RunFinderProperties {
             assertThat(found(s, from, s.length - from, 40, finder)).isEqualTo(referenceRuns(slice, 40));
         }
     }
+
+    /** Random DNA with planted exact and slightly changed repeats and a few BREAK letters and stretches. */
+    static byte[] plantedDna(Random rnd, int n) {
+        byte[] s = new byte[n];
+        for (int i = 0; i < n; i++) {
+            s[i] = (byte) rnd.nextInt(4);
+        }
+        for (int r = n / 150; r > 0; r--) {
+            int p = 1 + rnd.nextInt(rnd.nextBoolean() ? 8 : 80);
+            int len = Math.min(n, 2 * p + rnd.nextInt(4 * p + 40));
+            int at = rnd.nextInt(n - len + 1);
+            byte[] motif = new byte[p];
+            for (int k = 0; k < p; k++) {
+                motif[k] = (byte) rnd.nextInt(4);
+            }
+            boolean exact = rnd.nextBoolean();
+            for (int k = 0; k < len; k++) {
+                s[at + k] = !exact && rnd.nextInt(40) == 0 ? (byte) rnd.nextInt(4) : motif[k % p];
+            }
+        }
+        for (int b = rnd.nextInt(4); b > 0; b--) {
+            int at = rnd.nextInt(n);
+            int len = rnd.nextBoolean() ? 1 : rnd.nextInt(Math.min(200, n - at) + 1);
+            java.util.Arrays.fill(s, at, Math.min(n, at + len), N);
+        }
+        return s;
+    }
+
+    @Property(tries = 40)
+    void equalsReferenceOnPlantedDna(@ForAll long seed, @ForAll @IntRange(min = 1, max = 1000) int maxPeriod) {
+        Random rnd = new Random(seed);
+        byte[] s = plantedDna(rnd, 1500 + rnd.nextInt(1000));
+        assertThat(found(s, 0, s.length, maxPeriod, new RunFinder())).isEqualTo(referenceRuns(s, maxPeriod));
+    }
+
+    /** A long string with BREAK stretches has exactly the runs of its BREAK-free pieces, each found alone. */
+    @Property(tries = 15)
+    void breakSplitsTheStringIntoIndependentPieces(@ForAll long seed) {
+        Random rnd = new Random(seed);
+        byte[] s = plantedDna(rnd, 20_000 + rnd.nextInt(40_000));
+        for (int b = 0; b < 20; b++) {
+            s[rnd.nextInt(s.length)] = N;
+        }
+        RunFinder finder = new RunFinder();
+        Set<String> pieces = new TreeSet<>();
+        for (int i = 0; i < s.length; ) {
+            int j = i;
+            while (j < s.length && s[j] != N) {
+                j++;
+            }
+            RunList out = new RunList();
+            finder.find(s, i, j - i, 2000, out);
+            for (int r = 0; r < out.size(); r++) {
+                pieces.add((i + out.start(r)) + "-" + (i + out.end(r)) + "/" + out.period(r));
+            }
+            i = j + 1;
+        }
+        assertThat(found(s, 0, s.length, 2000, finder)).isEqualTo(pieces);
+    }
+
+    /**
+     * A reference that scales to long strings: for each period p, every maximal stretch where the letter p
+     * ahead is equal (and not BREAK) for at least p positions is a repetition with period p; it is a run of
+     * smallest period p unless a proper divisor of p is also a period (a smaller period of a stretch this
+     * long would make their gcd, a divisor of p, a period too).
+     */
+    static Set<String> perPeriodScan(byte[] s, int maxPeriod) {
+        Set<String> runs = new TreeSet<>();
+        int n = s.length;
+        for (int p = 1; p <= maxPeriod && 2 * p <= n; p++) {
+            int k = 0;
+            while (k + p < n) {
+                if (s[k] == N || s[k] != s[k + p]) {
+                    k++;
+                    continue;
+                }
+                int a = k;
+                while (k + p < n && s[k] != N && s[k] == s[k + p]) {
+                    k++;
+                }
+                int end = k + p;
+                if (k - a >= p && !hasDivisorPeriod(s, a, end, p)) {
+                    runs.add(a + "-" + end + "/" + p);
+                }
+            }
+        }
+        return runs;
+    }
+
+    private static boolean hasDivisorPeriod(byte[] s, int a, int end, int p) {
+        for (int d = 1; d < p; d++) {
+            if (p % d != 0) {
+                continue;
+            }
+            boolean period = true;
+            for (int x = a; x + d < end && period; x++) {
+                period = s[x] == s[x + d];
+            }
+            if (period) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    @Property(tries = 6)
+    void equalsPerPeriodScanOnLongPlantedDna(@ForAll long seed) {
+        Random rnd = new Random(seed);
+        byte[] s = plantedDna(rnd, 40_000 + rnd.nextInt(40_000));
+        int maxPeriod = 1 + rnd.nextInt(300);
+        assertThat(found(s, 0, s.length, maxPeriod, new RunFinder())).isEqualTo(perPeriodScan(s, maxPeriod));
+    }
 }
