@@ -2,7 +2,6 @@ package stria.score;
 
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Comparator;
 import java.util.List;
 import stria.io.Bases;
 import stria.repeats.RunList;
@@ -45,7 +44,7 @@ import stria.repeats.RunList;
  * the extension runs through them.
  *
  * <h2>One locus, one period</h2>
- * Candidates that share bases compete. Each has a strength, its alignment score less one point per
+ * Candidates that share bases compete ({@link Competition}). Each has a strength, its alignment score less one point per
  * motif base: the charge for the motif keeps a long consensus from winning by memorising the errors of
  * a short repeat. Among candidates linked by overlap, the set that overlaps at most at its edges and has
  * the largest total strength wins (weighted interval scheduling), so two neighbours that explain their
@@ -192,8 +191,8 @@ public final class LocusCaller {
             return null;
         }
 
-        List<Cand> cands = new ArrayList<>();
-        List<Cand> active = new ArrayList<>();
+        List<Candidate> cands = new ArrayList<>();
+        List<Candidate> active = new ArrayList<>();
         int[] covS = new int[maxP + 3];
         int[] covE = new int[maxP + 3];
         Arrays.fill(covE, Integer.MIN_VALUE);
@@ -221,7 +220,7 @@ public final class LocusCaller {
                 continue;
             }
             int ci = componentAt(compStart, compEnd, comps, s);
-            Cand cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
+            Candidate cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
             if (cand == null) {
                 continue;
             }
@@ -245,7 +244,7 @@ public final class LocusCaller {
                 if (qq <= 0 || t > 0 && qq == q) {
                     continue;
                 }
-                Cand alt = candidate(seq, cand.start, qq, compStart[ci], compEnd[ci]);
+                Candidate alt = candidate(seq, cand.start, qq, compStart[ci], compEnd[ci]);
                 if (alt != null) {
                     mark(covS, covE, alt.period, alt);
                     if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
@@ -257,9 +256,9 @@ public final class LocusCaller {
                 }
             }
         }
-        List<Cand> won = resolve(seq, cands);
+        List<Candidate> won = Competition.resolve(cands, (k, g0, g1) -> trimmed(seq, k, g0, g1));
         List<Locus> out = new ArrayList<>();
-        for (Cand k : won) {
+        for (Candidate k : won) {
             if (k.start >= from && k.start < to) {
                 out.add(k.toLocus(seq));
             }
@@ -300,11 +299,11 @@ public final class LocusCaller {
      * Whether a recurrence seed lies in a locus whose period its distance is a multiple of: in a
      * satellite, words also recur two or three units apart wherever a unit between carries errors.
      */
-    private static boolean coveredByMultiple(List<Cand> active, int s, int e, int d) {
+    private static boolean coveredByMultiple(List<Candidate> active, int s, int e, int d) {
         if (d < RecurrenceSeeds.MIN_PERIOD) {
             return false;
         }
-        for (Cand k : active) {
+        for (Candidate k : active) {
             if (k.end <= s) {
                 continue;
             }
@@ -321,14 +320,14 @@ public final class LocusCaller {
         return false;
     }
 
-    private static void mark(int[] covS, int[] covE, int p, Cand k) {
+    private static void mark(int[] covS, int[] covE, int p, Candidate k) {
         if (p < covE.length && k.end > covE[p]) {
             covS[p] = k.start;
             covE[p] = k.end;
         }
     }
 
-    private boolean passes(Cand k) {
+    private boolean passes(Candidate k) {
         ScoreSettings st = settings;
         int len = k.end - k.start;
         return k.period >= st.minPeriod() && k.period <= st.maxPeriod() && len >= st.minLength()
@@ -358,7 +357,7 @@ public final class LocusCaller {
         return counts;
     }
 
-    private Cand candidate(byte[] seq, int s, int p, int cs, int ce) {
+    private Candidate candidate(byte[] seq, int s, int p, int cs, int ce) {
         byte[] m0 = new byte[p];
         for (int k = 0; k < p; k++) {
             int code = Bases.code(seq[s + k]);
@@ -419,13 +418,13 @@ public final class LocusCaller {
         if (m == null) {
             return null;
         }
-        Cand k = align(seq, a, m, m.length, phaseMap[0], ce - a);
+        Candidate k = align(seq, a, m, m.length, phaseMap[0], ce - a);
         for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
             byte[] next = consensus(counts, k.motif, k.phaseA, phaseMap);
             if (next == null || Arrays.equals(next, k.motif)) {
                 break;
             }
-            Cand r = align(seq, a, next, next.length, phaseMap[0], ce - a);
+            Candidate r = align(seq, a, next, next.length, phaseMap[0], ce - a);
             if (r == null || r.score <= k.score) {
                 break;
             }
@@ -494,13 +493,13 @@ public final class LocusCaller {
      * Final alignment from a fixed left end: gives the right end, the counts and the phase of every base,
      * and leaves the votes of the alignment in {@link #counts}.
      */
-    private Cand align(byte[] seq, int a, byte[] motif, int p, int phaseA, int cap) {
+    private Candidate align(byte[] seq, int a, byte[] motif, int p, int phaseA, int cap) {
         aligner.extend(seq, a, 1, motif, p, phaseA, cap, xdrop(p));
         int len = aligner.bestI();
         if (len == 0) {
             return null;
         }
-        Cand k = new Cand();
+        Candidate k = new Candidate();
         k.start = a;
         k.end = a + len;
         k.period = p;
@@ -548,7 +547,7 @@ public final class LocusCaller {
      * sides agree with the most bases; it is taken when that gains at least {@link #SPLIT_GAIN} of the
      * locus' bases (and {@link #SPLIT_MIN_GAIN} bases) over one consensus and each side keeps two copies.
      */
-    private void addSplit(byte[] seq, Cand k, int ce, List<Cand> out) {
+    private void addSplit(byte[] seq, Candidate k, int ce, List<Candidate> out) {
         int p = k.period;
         int len = k.end - k.start;
         if (len < 4 * p || len < 2 * settings.minLength() || k.purity() > 0.97) {
@@ -602,8 +601,8 @@ public final class LocusCaller {
             return;
         }
         int x = k.start + bestAt;
-        Cand l = align(seq, k.start, ml, p, k.phaseA, bestAt);
-        Cand r = align(seq, x, mr, p, k.phaseAt[bestAt], ce - x);
+        Candidate l = align(seq, k.start, ml, p, k.phaseA, bestAt);
+        Candidate r = align(seq, x, mr, p, k.phaseAt[bestAt], ce - x);
         if (l == null || r == null || !passes(l) || !passes(r)) {
             out.add(k);
             return;
@@ -706,225 +705,19 @@ public final class LocusCaller {
         return n;
     }
 
-    // ---------------------------------------------------------------- competition between candidates
-
-    private static final Comparator<Cand> BY_POSITION = Comparator.<Cand>comparingInt(k -> k.start)
-            .thenComparingInt(k -> k.end).thenComparingInt(k -> k.period);
     /**
-     * Strength in a competition: the alignment score less one point per motif base. A long consensus can
-     * absorb the errors of a short repeat copy by copy (a 30-base "unit" of an imperfect CAAT repeat
-     * agrees a little better than CAAT itself); charging for the motif makes the shorter period win
-     * unless the longer one explains the bases clearly better.
+     * The longest stretch of a losing candidate that no winner covers, realigned; null when it is too
+     * short or no longer passes the filters.
      */
-    static int strength(int score, int period) {
-        return score - period;
-    }
-
-    private static final Comparator<Cand> BY_STRENGTH = Comparator.<Cand>comparingInt(k -> -strength(k.score, k.period))
-            .thenComparingInt(k -> k.period).thenComparingInt(k -> k.start).thenComparingInt(k -> k.end);
-
-    private List<Cand> resolve(byte[] seq, List<Cand> cands) {
-        cands.sort(BY_POSITION);
-        List<Cand> won = new ArrayList<>();
-        int i = 0;
-        while (i < cands.size()) {
-            // a cluster: candidates linked by overlap
-            int j = i + 1;
-            int end = cands.get(i).end;
-            while (j < cands.size() && cands.get(j).start < end) {
-                end = Math.max(end, cands.get(j).end);
-                j++;
-            }
-            List<Cand> cluster = new ArrayList<>(cands.subList(i, j));
-            List<Cand> order = tiling(cluster);
-            cluster.sort(BY_STRENGTH);
-            for (Cand k : cluster) {
-                if (!k.tiled) {
-                    order.add(k);
-                }
-            }
-            List<Cand> taken = new ArrayList<>();
-            Cand last = null;
-            for (Cand k : order) {
-                if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
-                    continue;
-                }
-                last = k;
-                Cand kept = free(seq, k, taken);
-                if (kept != null) {
-                    taken.add(kept);
-                }
-            }
-            taken.sort(BY_POSITION);
-            won.addAll(taken);
-            i = j;
-        }
-        return won;
-    }
-
-    /**
-     * The set of candidates, overlapping at most at their edges, with the largest total strength
-     * (weighted interval scheduling), strongest first; each is marked as tiled. A locus that one longer
-     * period covers in one piece can still lose to two neighbours that explain its parts better, as with
-     * (GGAA)n(GCAA)m against a 12-base unit mixing both.
-     */
-    private static List<Cand> tiling(List<Cand> cluster) {
-        int n = cluster.size();
-        // edges may overlap by a few bases: extensions of neighbours often claim a base or two of each other
-        int[] es = new int[n];
-        int[] ee = new int[n];
-        Integer[] byEnd = new Integer[n];
-        for (int i = 0; i < n; i++) {
-            Cand k = cluster.get(i);
-            int tol = Math.min(EDGE_TOLERANCE, (k.end - k.start) / 8);
-            es[i] = k.start + tol;
-            ee[i] = k.end - tol;
-            byEnd[i] = i;
-            k.tiled = false;
-        }
-        java.util.Arrays.sort(byEnd, (x, y) -> ee[x] != ee[y] ? Integer.compare(ee[x], ee[y])
-                : BY_STRENGTH.compare(cluster.get(x), cluster.get(y)));
-        long[] best = new long[n + 1];
-        boolean[] use = new boolean[n + 1];
-        int[] prev = new int[n + 1];
-        for (int r = 1; r <= n; r++) {
-            int i = byEnd[r - 1];
-            // last candidate in end order that ends at or before this one starts
-            int lo = 0;
-            int hi = r - 1;
-            while (lo < hi) {
-                int mid = (lo + hi + 1) >>> 1;
-                if (ee[byEnd[mid - 1]] <= es[i]) {
-                    lo = mid;
-                } else {
-                    hi = mid - 1;
-                }
-            }
-            Cand k = cluster.get(i);
-            long with = best[lo] + Math.max(1, strength(k.score, k.period));
-            if (with > best[r - 1]) {
-                best[r] = with;
-                use[r] = true;
-                prev[r] = lo;
-            } else {
-                best[r] = best[r - 1];
-                prev[r] = r - 1;
-            }
-        }
-        List<Cand> out = new ArrayList<>();
-        for (int r = n; r > 0; r = prev[r]) {
-            if (use[r]) {
-                Cand k = cluster.get(byEnd[r - 1]);
-                k.tiled = true;
-                out.add(k);
-            }
-        }
-        out.sort(BY_STRENGTH);
-        return out;
-    }
-
-    /** Bases at each end of a locus that may overlap a neighbour in the tiling. */
-    private static final int EDGE_TOLERANCE = 3;
-
-    /** The candidate itself if it overlaps nothing taken, else its longest free stretch realigned, or null. */
-    private Cand free(byte[] seq, Cand k, List<Cand> taken) {
-        int g0 = k.start;
-        int g1 = k.end;
-        boolean clash = false;
-        for (Cand t : taken) {
-            if (t.start < k.end && k.start < t.end) {
-                clash = true;
-                break;
-            }
-        }
-        if (!clash) {
-            return k;
-        }
-        // longest stretch of [k.start, k.end) outside every taken locus; leftmost on ties
-        int bestA = 0;
-        int bestB = 0;
-        int x = k.start;
-        while (x < k.end) {
-            int blockEnd = -1;
-            for (Cand t : taken) {
-                if (t.start <= x && x < t.end) {
-                    blockEnd = Math.max(blockEnd, t.end);
-                }
-            }
-            if (blockEnd >= 0) {
-                x = blockEnd;
-                continue;
-            }
-            int y = k.end;
-            for (Cand t : taken) {
-                if (t.start > x && t.start < y) {
-                    y = t.start;
-                }
-            }
-            if (y - x > bestB - bestA) {
-                bestA = x;
-                bestB = y;
-            }
-            x = y;
-        }
-        g0 = bestA;
-        g1 = bestB;
+    private Candidate trimmed(byte[] seq, Candidate k, int g0, int g1) {
         if (g1 - g0 < Math.max(settings.minLength(), k.period + SEED_EXTRA)) {
             return null;
         }
-        Cand r = align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0);
+        Candidate r = align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0);
         return r != null && passes(r) ? r : null;
     }
 
-    /** A candidate locus with the alignment figures needed to report or trim it. */
-    private static final class Cand {
-        int start;
-        int end;
-        int period;
-        byte[] motif;
-        int phaseA;
-        int score;
-        int matches;
-        int mismatches;
-        int insertions;
-        int deletions;
-        int[] phaseAt;
-        boolean tiled;
-
-        double purity() {
-            int cols = matches + mismatches + insertions + deletions;
-            return cols == 0 ? 0 : matches / (double) cols;
-        }
-
-        Locus toLocus(byte[] seq) {
-            char[] m = new char[period];
-            for (int i = 0; i < period; i++) {
-                m[i] = (char) Bases.letter(motif[(phaseA + i) % period]);
-            }
-            String motifText = new String(m);
-            int len = end - start;
-            return new Locus(start, end, period, motifText, MotifClass.of(motifText), len / (double) period,
-                    purity(), mismatches, insertions, deletions, score, entropy(seq, start, end));
-        }
-    }
-
     static double entropy(byte[] seq, int start, int end) {
-        int[] c = new int[4];
-        int n = 0;
-        for (int i = start; i < end; i++) {
-            int x = Bases.code(seq[i]);
-            if (x >= 0 && x < 4) {
-                c[x]++;
-                n++;
-            }
-        }
-        double h = 0;
-        for (int x : c) {
-            if (x > 0) {
-                double f = x / (double) n;
-                h -= f * Math.log(f) / Math.log(2);
-            }
-        }
-        return h;
+        return Candidate.entropy(seq, start, end);
     }
 }
