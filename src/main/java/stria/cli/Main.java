@@ -24,6 +24,8 @@ public final class Main implements Runnable {
     static {
         // the report draws charts with AWT classes; no display is ever needed
         System.setProperty("java.awt.headless", "true");
+        // htsjdk's own notices (e.g. about stream types while indexing) are not for our users' stderr
+        htsjdk.samtools.util.Log.setGlobalLogLevel(htsjdk.samtools.util.Log.LogLevel.ERROR);
     }
 
     public static void main(String[] args) {

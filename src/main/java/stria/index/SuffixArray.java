@@ -116,6 +116,7 @@ public final class SuffixArray {
             }
         }
 
+        // stage 2: LMS substrings sorted and named; equal names leave a reduced string to sort first
         int names = 0;
         if (m > 1) {
             sortLmsSubstringsBytes(t, f, n, k, sa, b, cnt, ptr);
