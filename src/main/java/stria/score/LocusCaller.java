@@ -2,7 +2,6 @@ package stria.score;
 
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Comparator;
 import java.util.List;
 import stria.io.Bases;
 import stria.repeats.RunList;
@@ -37,16 +36,22 @@ import stria.repeats.RunList;
  * does not fix the period; the result is reduced to its primitive root. A last alignment against the
  * consensus from the left end gives the right end and the counts, and up to {@link #VOTE_ROUNDS} more
  * rounds vote on that alignment while the score rises. Where the bases agree better at a neighbouring
- * distance or about as well at a near-divisor of the period, that period gets a candidate of its own.
+ * distance or about as well at a near-divisor of the period, that period gets a candidate of its own;
+ * units of {@link #NEIGHBOUR_MIN_PERIOD} bases or more with few copies also try the periods one off,
+ * since a handful of copies votes unreliably on the length of a long unit. A candidate whose copies
+ * change motif part way, as in (TGA)n(TGC)m, is split in two.
  * Seeds of one period separated by a few mismatches or a short indel end up in one candidate because
  * the extension runs through them.
  *
  * <h2>One locus, one period</h2>
- * Candidates that share bases compete: the higher alignment score less one point per motif base wins
- * (then the shorter period, then the earlier start); the charge for the motif keeps a long consensus
- * from winning by memorising the errors of a short repeat. A loser keeps its longest stretch not
- * covered by a winner, realigned, if that still passes the filters; this is how a compound repeat such
- * as (CA)n(GA)m comes out as two adjacent loci. Filters apply before the competition, so a locus that
+ * Candidates that share bases compete ({@link Competition}). Each has a strength, its alignment score less one point per
+ * motif base: the charge for the motif keeps a long consensus from winning by memorising the errors of
+ * a short repeat. Among candidates linked by overlap, the set that overlaps at most at its edges and has
+ * the largest total strength wins (weighted interval scheduling), so two neighbours that explain their
+ * parts well beat one longer unit that mixes them. Winners are taken strongest first (ties: shorter
+ * period, earlier start); every other candidate keeps its longest stretch not covered by one taken
+ * before, realigned, if that still passes the filters; this is how a compound repeat such as
+ * (CA)n(GA)m comes out as two adjacent loci. Filters apply before the competition, so a locus that
  * would not be reported never suppresses one that would.
  *
  * <h2>Why windows do not change the result</h2>
@@ -186,8 +191,8 @@ public final class LocusCaller {
             return null;
         }
 
-        List<Cand> cands = new ArrayList<>();
-        List<Cand> active = new ArrayList<>();
+        List<Candidate> cands = new ArrayList<>();
+        List<Candidate> active = new ArrayList<>();
         int[] covS = new int[maxP + 3];
         int[] covE = new int[maxP + 3];
         Arrays.fill(covE, Integer.MIN_VALUE);
@@ -215,7 +220,7 @@ public final class LocusCaller {
                 continue;
             }
             int ci = componentAt(compStart, compEnd, comps, s);
-            Cand cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
+            Candidate cand = candidate(seq, s, p, compStart[ci], compEnd[ci]);
             if (cand == null) {
                 continue;
             }
@@ -224,28 +229,36 @@ public final class LocusCaller {
             if (p >= RecurrenceSeeds.MIN_PERIOD) {
                 active.add(cand);
             }
-            if (passes(cand)) {
-                cands.add(cand);
+            if (!passes(cand)) {
+                continue;
             }
+            addSplit(seq, cand, compEnd[ci], cands);
             // a seed copy carrying an indel, or a distance spanning several units, gives a period a little
             // off or a multiple; the period the locus' bases agree with best gets its own candidate
             int q = otherPeriod(seq, cand.start, cand.end, cand.period);
-            if (q > 0) {
-                Cand alt = candidate(seq, cand.start, q, compStart[ci], compEnd[ci]);
+            int len = cand.end - cand.start;
+            boolean fewCopies = cand.period >= NEIGHBOUR_MIN_PERIOD && len < NEIGHBOUR_MAX_COPIES * cand.period;
+            for (int t = 0; t < 3; t++) {
+                // few copies of a long unit vote unreliably on its length: the neighbouring periods compete too
+                int qq = t == 0 ? q : fewCopies ? cand.period + (t == 1 ? -1 : 1) : -1;
+                if (qq <= 0 || t > 0 && qq == q) {
+                    continue;
+                }
+                Candidate alt = candidate(seq, cand.start, qq, compStart[ci], compEnd[ci]);
                 if (alt != null) {
                     mark(covS, covE, alt.period, alt);
                     if (alt.period >= RecurrenceSeeds.MIN_PERIOD) {
                         active.add(alt);
                     }
                     if (passes(alt)) {
-                        cands.add(alt);
+                        addSplit(seq, alt, compEnd[ci], cands);
                     }
                 }
             }
         }
-        List<Cand> won = resolve(seq, cands);
+        List<Candidate> won = Competition.resolve(cands, (k, g0, g1) -> trimmed(seq, k, g0, g1));
         List<Locus> out = new ArrayList<>();
-        for (Cand k : won) {
+        for (Candidate k : won) {
             if (k.start >= from && k.start < to) {
                 out.add(k.toLocus(seq));
             }
@@ -286,11 +299,11 @@ public final class LocusCaller {
      * Whether a recurrence seed lies in a locus whose period its distance is a multiple of: in a
      * satellite, words also recur two or three units apart wherever a unit between carries errors.
      */
-    private static boolean coveredByMultiple(List<Cand> active, int s, int e, int d) {
+    private static boolean coveredByMultiple(List<Candidate> active, int s, int e, int d) {
         if (d < RecurrenceSeeds.MIN_PERIOD) {
             return false;
         }
-        for (Cand k : active) {
+        for (Candidate k : active) {
             if (k.end <= s) {
                 continue;
             }
@@ -307,14 +320,14 @@ public final class LocusCaller {
         return false;
     }
 
-    private static void mark(int[] covS, int[] covE, int p, Cand k) {
+    private static void mark(int[] covS, int[] covE, int p, Candidate k) {
         if (p < covE.length && k.end > covE[p]) {
             covS[p] = k.start;
             covE[p] = k.end;
         }
     }
 
-    private boolean passes(Cand k) {
+    private boolean passes(Candidate k) {
         ScoreSettings st = settings;
         int len = k.end - k.start;
         return k.period >= st.minPeriod() && k.period <= st.maxPeriod() && len >= st.minLength()
@@ -344,7 +357,7 @@ public final class LocusCaller {
         return counts;
     }
 
-    private Cand candidate(byte[] seq, int s, int p, int cs, int ce) {
+    private Candidate candidate(byte[] seq, int s, int p, int cs, int ce) {
         byte[] m0 = new byte[p];
         for (int k = 0; k < p; k++) {
             int code = Bases.code(seq[s + k]);
@@ -405,13 +418,13 @@ public final class LocusCaller {
         if (m == null) {
             return null;
         }
-        Cand k = align(seq, a, m, m.length, phaseMap[0], ce - a);
+        Candidate k = align(seq, a, m, m.length, phaseMap[0], ce - a);
         for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
             byte[] next = consensus(counts, k.motif, k.phaseA, phaseMap);
             if (next == null || Arrays.equals(next, k.motif)) {
                 break;
             }
-            Cand r = align(seq, a, next, next.length, phaseMap[0], ce - a);
+            Candidate r = align(seq, a, next, next.length, phaseMap[0], ce - a);
             if (r == null || r.score <= k.score) {
                 break;
             }
@@ -480,13 +493,13 @@ public final class LocusCaller {
      * Final alignment from a fixed left end: gives the right end, the counts and the phase of every base,
      * and leaves the votes of the alignment in {@link #counts}.
      */
-    private Cand align(byte[] seq, int a, byte[] motif, int p, int phaseA, int cap) {
+    private Candidate align(byte[] seq, int a, byte[] motif, int p, int phaseA, int cap) {
         aligner.extend(seq, a, 1, motif, p, phaseA, cap, xdrop(p));
         int len = aligner.bestI();
         if (len == 0) {
             return null;
         }
-        Cand k = new Cand();
+        Candidate k = new Candidate();
         k.start = a;
         k.end = a + len;
         k.period = p;
@@ -525,7 +538,102 @@ public final class LocusCaller {
         return k;
     }
 
-    private static final int AGREEMENT_SAMPLE = 1500;
+    private static final int AGREEMENT_SAMPLE = 600;
+
+    /**
+     * Adds the candidate, or the two loci it is made of when its copies change motif part way, as in
+     * (TGA)n(TGC)m: the alignment runs on through such a change (two letters of three still match), so
+     * the split is found afterwards. The split point is where separate majority consensuses for the two
+     * sides agree with the most bases; it is taken when that gains at least {@link #SPLIT_GAIN} of the
+     * locus' bases (and {@link #SPLIT_MIN_GAIN} bases) over one consensus and each side keeps two copies.
+     */
+    private void addSplit(byte[] seq, Candidate k, int ce, List<Candidate> out) {
+        int p = k.period;
+        int len = k.end - k.start;
+        if (len < 4 * p || len < 2 * settings.minLength() || k.purity() > 0.97) {
+            out.add(k);
+            return;
+        }
+        int[] left = new int[4 * p];
+        int[] right = new int[4 * p];
+        int[] code = new int[len];
+        for (int i = 0; i < len; i++) {
+            code[i] = Bases.code(seq[k.start + i]);
+            right[4 * k.phaseAt[i] + code[i]]++;
+        }
+        int single = 0;
+        for (int ph = 0; ph < p; ph++) {
+            single += max4(right, ph);
+        }
+        int sum = single; // sum over phases of the left and right majorities
+        int best = single;
+        int bestAt = -1;
+        int minSide = Math.max(2 * p, settings.minLength());
+        for (int i = 0; i < len - minSide; i++) {
+            int ph = k.phaseAt[i];
+            int before = max4(left, ph) + max4(right, ph);
+            left[4 * ph + code[i]]++;
+            right[4 * ph + code[i]]--;
+            sum += max4(left, ph) + max4(right, ph) - before;
+            if (i + 1 >= minSide && sum > best) {
+                best = sum;
+                bestAt = i + 1;
+            }
+        }
+        if (bestAt < 0 || best - single < Math.max(SPLIT_MIN_GAIN, SPLIT_GAIN * len)) {
+            out.add(k);
+            return;
+        }
+        // the two consensuses, counted again on each side of the chosen point
+        byte[] ml = new byte[p];
+        byte[] mr = new byte[p];
+        Arrays.fill(left, 0);
+        Arrays.fill(right, 0);
+        for (int i = 0; i < len; i++) {
+            (i < bestAt ? left : right)[4 * k.phaseAt[i] + code[i]]++;
+        }
+        for (int ph = 0; ph < p; ph++) {
+            ml[ph] = (byte) argmax4(left, ph, k.motif[ph]);
+            mr[ph] = (byte) argmax4(right, ph, k.motif[ph]);
+        }
+        if (primitiveRoot(ml) < p || primitiveRoot(mr) < p) {
+            out.add(k);
+            return;
+        }
+        int x = k.start + bestAt;
+        Candidate l = align(seq, k.start, ml, p, k.phaseA, bestAt);
+        Candidate r = align(seq, x, mr, p, k.phaseAt[bestAt], ce - x);
+        if (l == null || r == null || !passes(l) || !passes(r)) {
+            out.add(k);
+            return;
+        }
+        out.add(l);
+        out.add(r);
+    }
+
+    /** Share of a locus' bases a split must gain, and the fewest bases, so chance variation never splits. */
+    private static final double SPLIT_GAIN = 0.08;
+    private static final int SPLIT_MIN_GAIN = 6;
+
+    private static int max4(int[] c, int ph) {
+        int o = 4 * ph;
+        return Math.max(Math.max(c[o], c[o + 1]), Math.max(c[o + 2], c[o + 3]));
+    }
+
+    private static int argmax4(int[] c, int ph, int prefer) {
+        int o = 4 * ph;
+        int best = prefer;
+        for (int b = 0; b < 4; b++) {
+            if (c[o + b] > c[o + best]) {
+                best = b;
+            }
+        }
+        return best;
+    }
+
+    /** Units this long or longer with fewer than this many copies also try the periods one off. */
+    private static final int NEIGHBOUR_MIN_PERIOD = 20;
+    private static final int NEIGHBOUR_MAX_COPIES = 10;
 
     /** Fraction of positions x in [a, b - q) whose base equals the base q later. */
     private static double agreement(byte[] seq, int a, int b, int q) {
@@ -597,154 +705,19 @@ public final class LocusCaller {
         return n;
     }
 
-    // ---------------------------------------------------------------- competition between candidates
-
-    private static final Comparator<Cand> BY_POSITION = Comparator.<Cand>comparingInt(k -> k.start)
-            .thenComparingInt(k -> k.end).thenComparingInt(k -> k.period);
     /**
-     * Strength in a competition: the alignment score less one point per motif base. A long consensus can
-     * absorb the errors of a short repeat copy by copy (a 30-base "unit" of an imperfect CAAT repeat
-     * agrees a little better than CAAT itself); charging for the motif makes the shorter period win
-     * unless the longer one explains the bases clearly better.
+     * The longest stretch of a losing candidate that no winner covers, realigned; null when it is too
+     * short or no longer passes the filters.
      */
-    static int strength(int score, int period) {
-        return score - period;
-    }
-
-    private static final Comparator<Cand> BY_STRENGTH = Comparator.<Cand>comparingInt(k -> -strength(k.score, k.period))
-            .thenComparingInt(k -> k.period).thenComparingInt(k -> k.start).thenComparingInt(k -> k.end);
-
-    private List<Cand> resolve(byte[] seq, List<Cand> cands) {
-        cands.sort(BY_POSITION);
-        List<Cand> won = new ArrayList<>();
-        int i = 0;
-        while (i < cands.size()) {
-            // a cluster: candidates linked by overlap
-            int j = i + 1;
-            int end = cands.get(i).end;
-            while (j < cands.size() && cands.get(j).start < end) {
-                end = Math.max(end, cands.get(j).end);
-                j++;
-            }
-            List<Cand> cluster = new ArrayList<>(cands.subList(i, j));
-            cluster.sort(BY_STRENGTH);
-            List<Cand> taken = new ArrayList<>();
-            Cand last = null;
-            for (Cand k : cluster) {
-                if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
-                    continue;
-                }
-                last = k;
-                Cand kept = free(seq, k, taken);
-                if (kept != null) {
-                    taken.add(kept);
-                }
-            }
-            taken.sort(BY_POSITION);
-            won.addAll(taken);
-            i = j;
-        }
-        return won;
-    }
-
-    /** The candidate itself if it overlaps nothing taken, else its longest free stretch realigned, or null. */
-    private Cand free(byte[] seq, Cand k, List<Cand> taken) {
-        int g0 = k.start;
-        int g1 = k.end;
-        boolean clash = false;
-        for (Cand t : taken) {
-            if (t.start < k.end && k.start < t.end) {
-                clash = true;
-                break;
-            }
-        }
-        if (!clash) {
-            return k;
-        }
-        // longest stretch of [k.start, k.end) outside every taken locus; leftmost on ties
-        int bestA = 0;
-        int bestB = 0;
-        int x = k.start;
-        while (x < k.end) {
-            int blockEnd = -1;
-            for (Cand t : taken) {
-                if (t.start <= x && x < t.end) {
-                    blockEnd = Math.max(blockEnd, t.end);
-                }
-            }
-            if (blockEnd >= 0) {
-                x = blockEnd;
-                continue;
-            }
-            int y = k.end;
-            for (Cand t : taken) {
-                if (t.start > x && t.start < y) {
-                    y = t.start;
-                }
-            }
-            if (y - x > bestB - bestA) {
-                bestA = x;
-                bestB = y;
-            }
-            x = y;
-        }
-        g0 = bestA;
-        g1 = bestB;
+    private Candidate trimmed(byte[] seq, Candidate k, int g0, int g1) {
         if (g1 - g0 < Math.max(settings.minLength(), k.period + SEED_EXTRA)) {
             return null;
         }
-        Cand r = align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0);
+        Candidate r = align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0);
         return r != null && passes(r) ? r : null;
     }
 
-    /** A candidate locus with the alignment figures needed to report or trim it. */
-    private static final class Cand {
-        int start;
-        int end;
-        int period;
-        byte[] motif;
-        int phaseA;
-        int score;
-        int matches;
-        int mismatches;
-        int insertions;
-        int deletions;
-        int[] phaseAt;
-
-        double purity() {
-            int cols = matches + mismatches + insertions + deletions;
-            return cols == 0 ? 0 : matches / (double) cols;
-        }
-
-        Locus toLocus(byte[] seq) {
-            char[] m = new char[period];
-            for (int i = 0; i < period; i++) {
-                m[i] = (char) Bases.letter(motif[(phaseA + i) % period]);
-            }
-            String motifText = new String(m);
-            int len = end - start;
-            return new Locus(start, end, period, motifText, MotifClass.of(motifText), len / (double) period,
-                    purity(), mismatches, insertions, deletions, score, entropy(seq, start, end));
-        }
-    }
-
     static double entropy(byte[] seq, int start, int end) {
-        int[] c = new int[4];
-        int n = 0;
-        for (int i = start; i < end; i++) {
-            int x = Bases.code(seq[i]);
-            if (x >= 0 && x < 4) {
-                c[x]++;
-                n++;
-            }
-        }
-        double h = 0;
-        for (int x : c) {
-            if (x > 0) {
-                double f = x / (double) n;
-                h -= f * Math.log(f) / Math.log(2);
-            }
-        }
-        return h;
+        return Candidate.entropy(seq, start, end);
     }
 }

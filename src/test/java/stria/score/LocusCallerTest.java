@@ -103,6 +103,33 @@ class LocusCallerTest {
     }
 
     @Test
+    void aChangeOfMotifWithinOnePeriodSplitsTheLocus() {
+        // two letters of three still match across the change, so one alignment runs through it
+        String s = repeat("TGA", 12) + repeat("TGC", 14);
+        byte[] seq = flanked(s, 200, 13);
+        List<Locus> got = within(call(seq, SETTINGS), 200, 200 + s.length());
+        assertThat(got).hasSize(2);
+        assertThat(got).extracting(Locus::motifClass).containsExactly(MotifClass.of("TGA"), MotifClass.of("TGC"));
+        assertThat(got).extracting(Locus::purity).containsOnly(1.0);
+        assertThat(Math.abs(got.get(0).end() - 236)).isLessThanOrEqualTo(3);
+        assertThat(got.get(1).start()).isEqualTo(got.get(0).end());
+    }
+
+    @Test
+    void variationSpreadOverALocusDoesNotSplitIt() {
+        Random r = new Random(14);
+        char[] m = repeat("ACCTG", 30).toCharArray();
+        for (int k = 0; k < 15; k++) {
+            int i = 5 + r.nextInt(m.length - 10);
+            m[i] = "ACGT".charAt(("ACGT".indexOf(m[i]) + 1 + r.nextInt(3)) % 4);
+        }
+        byte[] seq = flanked(new String(m), 200, 15);
+        List<Locus> got = within(call(seq, SETTINGS), 200, 350);
+        assertThat(got).hasSize(1);
+        assertThat(got.get(0).period()).isEqualTo(5);
+    }
+
+    @Test
     void aDinucleotideIsNotAlsoReportedAtMultiplesOfItsPeriod() {
         char[] m = repeat("AT", 30).toCharArray();
         m[17] = 'C';

@@ -1,0 +1,186 @@
+package stria.score;
+
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+
+/**
+ * One locus, one period: decides between candidates that share bases. Each candidate has a strength,
+ * its alignment score less one point per motif base. Among candidates linked by overlap, the set that
+ * overlaps at most at its edges and has the largest total strength wins (weighted interval scheduling);
+ * winners are taken strongest first (ties: shorter period, earlier start); every other candidate keeps
+ * its longest stretch not covered by one taken before, if the caller's trimmer still accepts it.
+ * Clusters are independent, so the outcome for a stretch of contig depends only on the candidates in it.
+ */
+final class Competition {
+    private Competition() {
+    }
+
+    /** Realigns a candidate on a stretch of it, or returns null when that stretch is not a locus. */
+    interface Trimmer {
+        Candidate trim(Candidate k, int from, int to);
+    }
+
+    private static final Comparator<Candidate> BY_POSITION =
+            Comparator.<Candidate>comparingInt(k -> k.start).thenComparingInt(k -> k.end)
+                    .thenComparingInt(k -> k.period);
+
+    /**
+     * Strength in a competition: the alignment score less one point per motif base. A long consensus can
+     * absorb the errors of a short repeat copy by copy (a 30-base "unit" of an imperfect CAAT repeat
+     * agrees a little better than CAAT itself); charging for the motif makes the shorter period win
+     * unless the longer one explains the bases clearly better.
+     */
+    static int strength(int score, int period) {
+        return score - period;
+    }
+
+    private static final Comparator<Candidate> BY_STRENGTH =
+            Comparator.<Candidate>comparingInt(k -> -strength(k.score, k.period)).thenComparingInt(k -> k.period)
+                    .thenComparingInt(k -> k.start).thenComparingInt(k -> k.end);
+
+    static List<Candidate> resolve(List<Candidate> cands, Trimmer trimmer) {
+        cands.sort(BY_POSITION);
+        List<Candidate> won = new ArrayList<>();
+        int i = 0;
+        while (i < cands.size()) {
+            // a cluster: candidates linked by overlap
+            int j = i + 1;
+            int end = cands.get(i).end;
+            while (j < cands.size() && cands.get(j).start < end) {
+                end = Math.max(end, cands.get(j).end);
+                j++;
+            }
+            List<Candidate> cluster = new ArrayList<>(cands.subList(i, j));
+            List<Candidate> order = tiling(cluster);
+            cluster.sort(BY_STRENGTH);
+            for (Candidate k : cluster) {
+                if (!k.tiled) {
+                    order.add(k);
+                }
+            }
+            List<Candidate> taken = new ArrayList<>();
+            Candidate last = null;
+            for (Candidate k : order) {
+                if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
+                    continue;
+                }
+                last = k;
+                Candidate kept = free(k, taken, trimmer);
+                if (kept != null) {
+                    taken.add(kept);
+                }
+            }
+            taken.sort(BY_POSITION);
+            won.addAll(taken);
+            i = j;
+        }
+        return won;
+    }
+
+    /**
+     * The set of candidates, overlapping at most at their edges, with the largest total strength
+     * (weighted interval scheduling), strongest first; each is marked as tiled. A locus that one longer
+     * period covers in one piece can still lose to two neighbours that explain its parts better, as with
+     * (GGAA)n(GCAA)m against a 12-base unit mixing both.
+     */
+    private static List<Candidate> tiling(List<Candidate> cluster) {
+        int n = cluster.size();
+        // edges may overlap by a few bases: extensions of neighbours often claim a base or two of each other
+        int[] es = new int[n];
+        int[] ee = new int[n];
+        Integer[] byEnd = new Integer[n];
+        for (int i = 0; i < n; i++) {
+            Candidate k = cluster.get(i);
+            int tol = Math.min(EDGE_TOLERANCE, (k.end - k.start) / 8);
+            es[i] = k.start + tol;
+            ee[i] = k.end - tol;
+            byEnd[i] = i;
+            k.tiled = false;
+        }
+        java.util.Arrays.sort(byEnd, (x, y) -> ee[x] != ee[y] ? Integer.compare(ee[x], ee[y])
+                : BY_STRENGTH.compare(cluster.get(x), cluster.get(y)));
+        long[] best = new long[n + 1];
+        boolean[] use = new boolean[n + 1];
+        int[] prev = new int[n + 1];
+        for (int r = 1; r <= n; r++) {
+            int i = byEnd[r - 1];
+            // last candidate in end order that ends at or before this one starts
+            int lo = 0;
+            int hi = r - 1;
+            while (lo < hi) {
+                int mid = (lo + hi + 1) >>> 1;
+                if (ee[byEnd[mid - 1]] <= es[i]) {
+                    lo = mid;
+                } else {
+                    hi = mid - 1;
+                }
+            }
+            Candidate k = cluster.get(i);
+            long with = best[lo] + Math.max(1, strength(k.score, k.period));
+            if (with > best[r - 1]) {
+                best[r] = with;
+                use[r] = true;
+                prev[r] = lo;
+            } else {
+                best[r] = best[r - 1];
+                prev[r] = r - 1;
+            }
+        }
+        List<Candidate> out = new ArrayList<>();
+        for (int r = n; r > 0; r = prev[r]) {
+            if (use[r]) {
+                Candidate k = cluster.get(byEnd[r - 1]);
+                k.tiled = true;
+                out.add(k);
+            }
+        }
+        out.sort(BY_STRENGTH);
+        return out;
+    }
+
+    /** Bases at each end of a locus that may overlap a neighbour in the tiling. */
+    private static final int EDGE_TOLERANCE = 3;
+
+    /** The candidate itself if it overlaps nothing taken, else its longest free stretch realigned, or null. */
+    private static Candidate free(Candidate k, List<Candidate> taken, Trimmer trimmer) {
+        boolean clash = false;
+        for (Candidate t : taken) {
+            if (t.start < k.end && k.start < t.end) {
+                clash = true;
+                break;
+            }
+        }
+        if (!clash) {
+            return k;
+        }
+        // longest stretch of [k.start, k.end) outside every taken locus; leftmost on ties
+        int bestA = 0;
+        int bestB = 0;
+        int x = k.start;
+        while (x < k.end) {
+            int blockEnd = -1;
+            for (Candidate t : taken) {
+                if (t.start <= x && x < t.end) {
+                    blockEnd = Math.max(blockEnd, t.end);
+                }
+            }
+            if (blockEnd >= 0) {
+                x = blockEnd;
+                continue;
+            }
+            int y = k.end;
+            for (Candidate t : taken) {
+                if (t.start > x && t.start < y) {
+                    y = t.start;
+                }
+            }
+            if (y - x > bestB - bestA) {
+                bestA = x;
+                bestB = y;
+            }
+            x = y;
+        }
+        return bestB > bestA ? trimmer.trim(k, bestA, bestB) : null;
+    }
+}
