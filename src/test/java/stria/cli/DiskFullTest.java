@@ -1,0 +1,53 @@
+package stria.cli;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import stria.testutil.Cli;
+
+/**
+ * A full disk while writing: the real command on a tiny tmpfs (root only; CI runs as root) must say so in
+ * one line, exit 1, and leave neither output nor temporary files behind.
+ */
+class DiskFullTest {
+    @TempDir
+    Path dir;
+
+    @Test
+    void aFullDiskIsReportedAndLeavesNothingBehind() throws IOException {
+        Path mnt = Files.createDirectory(dir.resolve("tiny"));
+        Cli.Result mount = Cli.exec(dir, null, List.of("mount", "-t", "tmpfs", "-o", "size=256k", "tmpfs",
+                mnt.toString()));
+        if (mount.exit() != 0) {
+            if (Cli.requireTools()) {
+                throw new AssertionError("cannot mount a tmpfs for the disk-full test: " + mount.err());
+            }
+            Assumptions.assumeTrue(false, "needs root to mount a small tmpfs");
+        }
+        try {
+            for (String[] outputs : new String[][] {
+                {"--bed", mnt.resolve("out.bed").toString()},
+                {"--tsv", mnt.resolve("out.tsv").toString(), "--bed", mnt.resolve("out.bed.gz").toString()}}) {
+                String[] args = Stream.concat(Stream.of("scan", "--exact", "--min-length", "2"),
+                        Stream.concat(Stream.of(outputs), Stream.of(ScanCommandTest.DEMO.toString())))
+                        .toArray(String[]::new);
+                Cli.Result r = Cli.stria(dir, args);
+                assertThat(r.exit()).as(r.err()).isEqualTo(1);
+                assertThat(r.err().strip().lines().count()).as(r.err()).isEqualTo(1);
+                assertThat(r.err()).contains("no space left on device").contains(mnt.toString());
+                try (Stream<Path> left = Files.list(mnt)) {
+                    assertThat(left.toList()).as("files left on the full disk").isEmpty();
+                }
+            }
+        } finally {
+            Cli.exec(dir, null, List.of("umount", mnt.toString()));
+        }
+    }
+}
