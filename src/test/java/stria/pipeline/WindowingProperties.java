@@ -128,7 +128,7 @@ class WindowingProperties {
             }
         }
         ScanSettings s = new ScanSettings(true, new ScoreSettings(1, maxPeriod, minCopies, minLength, 0, 0), threads,
-                ScanSettings.minWindow(maxPeriod) + (int) (Math.abs(seed) % 300), List.of(), 0, 0, 1_000_000);
+                ScanSettings.minWindow(maxPeriod) + (int) Math.floorMod(seed, 300L), List.of(), 0, 0, 1_000_000);
         assertThat(scan(seq, s, List.of(new int[] {0, seq.length}))).isEqualTo(expected);
     }
 
