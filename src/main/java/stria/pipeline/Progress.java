@@ -63,7 +63,7 @@ public final class Progress implements AutoCloseable {
         long d = Math.min(done.get(), total);
         double secs = Math.max(1e-3, (System.nanoTime() - startNanos) / 1e9);
         double rate = d / secs;
-        String left = last ? "done" : rate > 0 ? formatDuration((total - d) / rate) + " left" : "";
+        String left = last ? "done" : d > 0 ? formatDuration((total - d) / rate) + " left" : "starting";
         String line = String.format(java.util.Locale.ROOT, "stria: %.1f of %.1f Mb (%d%%), %.2f Mb/s, %s",
                 d / 1e6, total / 1e6, (int) (100 * d / total), rate / 1e6, left);
         if (terminal) {
