@@ -69,6 +69,8 @@ public final class LocusCaller {
 
     private final ScoreSettings settings;
     private final WrapAligner aligner = new WrapAligner();
+    // the left end of a candidate is found while the right end's path is still wanted
+    private final WrapAligner leftAligner = new WrapAligner();
     private final RecurrenceSeeds recurrence = new RecurrenceSeeds();
 
     public LocusCaller(ScoreSettings settings) {
@@ -366,18 +368,33 @@ public final class LocusCaller {
             }
             m0[k] = (byte) code;
         }
-        int[] cnt = clearCounts(p);
         int xd = xdrop(p);
-        // the provisional consensus is voted on the first copies only; the final one on the whole locus
+        // the provisional consensus is voted on the first copies only; the final one on the whole locus.
+        // Both ends are found before any vote is counted: most candidates fail the length test and their
+        // paths are never walked
         aligner.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
         int right = aligner.bestI();
+        leftAligner.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
+        int left = leftAligner.bestI();
+        int leftJ = leftAligner.bestJ();
+        if (left + right < p + SEED_EXTRA) {
+            return null;
+        }
+        int[] cnt = clearCounts(p);
         // an insertion of several bases is one vote for its boundary; the seed copy, which the motif was
         // read from, does not vote: with few copies it would outvote the others on its own errors
-        final int[] lastIns = {-1};
-        aligner.traceback((i, j, op) -> {
+        int cols = aligner.path();
+        int[] pi = aligner.pathI;
+        int[] pj = aligner.pathJ;
+        byte[] po = aligner.pathOp;
+        int lastIns = -1;
+        for (int c = 0; c < cols; c++) {
+            int i = pi[c];
+            int j = pj[c];
+            byte op = po[c];
             if (i <= p && op != WrapAligner.DEL || j <= p && op == WrapAligner.DEL) {
-                lastIns[0] = -1;
-                return;
+                lastIns = -1;
+                continue;
             }
             if (op == WrapAligner.DIAG) {
                 cnt[SLOTS * ((j - 1) % p) + Bases.code(seq[s + i - 1])]++;
@@ -385,31 +402,33 @@ public final class LocusCaller {
                 cnt[SLOTS * ((j - 1) % p) + DELETED]++;
             } else {
                 cnt[SLOTS * (j % p) + INSERTED_BASES]++;
-                if (lastIns[0] != j) {
+                if (lastIns != j) {
                     cnt[SLOTS * (j % p) + INSERTED]++;
                 }
             }
-            lastIns[0] = op == WrapAligner.INS ? j : -1;
-        });
-        aligner.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
-        int left = aligner.bestI();
-        int leftJ = aligner.bestJ();
-        lastIns[0] = -1;
-        aligner.traceback((i, j, op) -> {
+            lastIns = op == WrapAligner.INS ? j : -1;
+        }
+        cols = leftAligner.path();
+        pi = leftAligner.pathI;
+        pj = leftAligner.pathJ;
+        po = leftAligner.pathOp;
+        lastIns = -1;
+        for (int c = 0; c < cols; c++) {
+            int i = pi[c];
+            int j = pj[c];
+            byte op = po[c];
+            int slot = SLOTS * Math.floorMod(p - j, p);
             if (op == WrapAligner.DIAG) {
-                cnt[SLOTS * Math.floorMod(p - j, p) + Bases.code(seq[s - i])]++;
+                cnt[slot + Bases.code(seq[s - i])]++;
             } else if (op == WrapAligner.DEL) {
-                cnt[SLOTS * Math.floorMod(p - j, p) + DELETED]++;
+                cnt[slot + DELETED]++;
             } else {
-                cnt[SLOTS * Math.floorMod(p - j, p) + INSERTED_BASES]++;
-                if (lastIns[0] != j) {
-                    cnt[SLOTS * Math.floorMod(p - j, p) + INSERTED]++;
+                cnt[slot + INSERTED_BASES]++;
+                if (lastIns != j) {
+                    cnt[slot + INSERTED]++;
                 }
             }
-            lastIns[0] = op == WrapAligner.INS ? j : -1;
-        });
-        if (left + right < p + SEED_EXTRA) {
-            return null;
+            lastIns = op == WrapAligner.INS ? j : -1;
         }
         int a = s - left;
         int phaseA = left == 0 ? 0 : Math.floorMod(p - leftJ, p);
@@ -509,32 +528,47 @@ public final class LocusCaller {
         int[] phaseAt = new int[len];
         k.phaseAt = phaseAt;
         int[] cnt = clearCounts(p);
-        final int[] lastIns = {-1};
-        aligner.traceback((i, j, op) -> {
+        int cols = aligner.path();
+        int[] pi = aligner.pathI;
+        int[] pj = aligner.pathJ;
+        byte[] po = aligner.pathOp;
+        int matches = 0;
+        int mismatches = 0;
+        int insertions = 0;
+        int deletions = 0;
+        int lastIns = -1;
+        for (int c = 0; c < cols; c++) {
+            int i = pi[c];
+            int j = pj[c];
+            byte op = po[c];
             if (op == WrapAligner.DIAG) {
                 int ph = (phaseA + j - 1) % p;
                 phaseAt[i - 1] = ph;
                 int x = Bases.code(seq[a + i - 1]);
                 cnt[SLOTS * ph + x]++;
                 if (motif[ph] == x) {
-                    k.matches++;
+                    matches++;
                 } else {
-                    k.mismatches++;
+                    mismatches++;
                 }
             } else if (op == WrapAligner.INS) {
                 int ph = (phaseA + j) % p;
                 phaseAt[i - 1] = ph;
-                k.insertions++;
+                insertions++;
                 cnt[SLOTS * ph + INSERTED_BASES]++;
-                if (lastIns[0] != j) {
+                if (lastIns != j) {
                     cnt[SLOTS * ph + INSERTED]++;
                 }
             } else {
-                k.deletions++;
+                deletions++;
                 cnt[SLOTS * ((phaseA + j - 1) % p) + DELETED]++;
             }
-            lastIns[0] = op == WrapAligner.INS ? j : -1;
-        });
+            lastIns = op == WrapAligner.INS ? j : -1;
+        }
+        k.matches = matches;
+        k.mismatches = mismatches;
+        k.insertions = insertions;
+        k.deletions = deletions;
         return k;
     }
 
@@ -680,7 +714,8 @@ public final class LocusCaller {
             // shortest first: the largest divisor count gives the shortest unit
             int c = Math.round(p / (float) m);
             for (int q = Math.max(1, c - 2); q <= c + 2 && q < p; q++) {
-                if (agreement(seq, a, b, q) >= base - 0.05 && agreement(seq, a, b, q) >= 0.5) {
+                double g = agreement(seq, a, b, q);
+                if (g >= base - 0.05 && g >= 0.5) {
                     return q;
                 }
             }

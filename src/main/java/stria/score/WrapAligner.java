@@ -32,6 +32,12 @@ public final class WrapAligner {
     private static final int PAD = HALF + 2;
     private int[] prev = new int[BAND + 2 * PAD];
     private int[] cur = new int[BAND + 2 * PAD];
+
+    // extend writes only the band of a row, so the pads read as unreachable for the aligner's lifetime
+    {
+        Arrays.fill(prev, NEG);
+        Arrays.fill(cur, NEG);
+    }
     private byte[] trace = new byte[BAND * 1024];
     private int[] rowLo = new int[1024];
     // the template unrolled: tmpl[x] is template letter x (letter 0 unused), grown on demand
@@ -64,21 +70,22 @@ public final class WrapAligner {
      * ends the text.
      */
     public void extend(byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap, int xdrop) {
-        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable
+        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable;
+        // the pads are never written, so only the band of the first row needs resetting
         int[] prev = this.prev;
         int[] cur = this.cur;
-        Arrays.fill(prev, NEG);
-        Arrays.fill(cur, NEG);
+        Arrays.fill(prev, PAD, PAD + BAND, NEG);
         prev[PAD] = 0;
-        ensureRows(1);
         rowLo[0] = 0;
+        byte[] trace = this.trace;
         Arrays.fill(trace, 0, BAND, START);
         int lo = 0;
         int prevBestK = 0;
         tmplLen = 0;
-        bestI = 0;
-        bestJ = 0;
-        bestScore = 0;
+        int bestI = 0;
+        int bestJ = 0;
+        int bestScore = 0;
+        int floor = -xdrop;
         int pos = pos0;
         for (int i = 1; i <= cap; i++, pos += dir) {
             int t = Bases.code(seq[pos]);
@@ -91,6 +98,7 @@ public final class WrapAligner {
             int shift = lo - prevLo + PAD;
             if (i >= rowLo.length) {
                 ensureRows(i + 1);
+                trace = this.trace;
             }
             rowLo[i] = lo;
             int tb = i * BAND;
@@ -101,29 +109,28 @@ public final class WrapAligner {
             }
             byte[] tm = tmpl;
             int left = NEG;
+            // the cell above-left of column k + 1 is the cell above column k: each cell of the row above is
+            // read once
+            int diag = prev[shift - 1];
             for (int k = 0; k < BAND; k++) {
-                int pk = k + shift; // padded index of the same column in the row above
-                // entering column j diagonally consumes template letter j; column 0 has no letter, but its
-                // diagonal predecessor is unreachable anyway
-                int best = prev[pk - 1] + (tm[lo + k] == t ? MATCH : MISMATCH);
-                byte op = DIAG;
-                int ins = prev[pk] + GAP;
-                if (ins > best) {
-                    best = ins;
-                    op = INS;
-                }
+                int up = prev[shift + k];
+                // in random sequence every comparison below goes either way at random, so they are written
+                // as selects rather than branches; ties keep the same order of preference (diagonal, then
+                // insertion, then deletion) and the first best cell of the row
+                int eq = ((tm[lo + k] ^ t) - 1) >>> 31;
+                int best = diag + MISMATCH + (MATCH - MISMATCH) * eq;
+                int ins = up + GAP;
+                int op = ins > best ? INS : DIAG;
+                best = Math.max(best, ins);
                 int del = left + GAP;
-                if (del > best) {
-                    best = del;
-                    op = DEL;
-                }
+                op = del > best ? DEL : op;
+                best = Math.max(best, del);
                 cur[PAD + k] = best;
                 left = best;
-                trace[tb + k] = op;
-                if (best > rowMax) {
-                    rowMax = best;
-                    rowMaxK = k;
-                }
+                diag = up;
+                trace[tb + k] = (byte) op;
+                rowMaxK = best > rowMax ? k : rowMaxK;
+                rowMax = Math.max(rowMax, best);
             }
             int[] sw = prev;
             prev = cur;
@@ -133,14 +140,74 @@ public final class WrapAligner {
                 bestScore = rowMax;
                 bestI = i;
                 bestJ = lo + rowMaxK;
+                floor = rowMax - xdrop;
             }
-            if (rowMax < bestScore - xdrop) {
+            if (rowMax < floor) {
                 break;
             }
         }
         this.prev = prev;
         this.cur = cur;
+        this.bestI = bestI;
+        this.bestJ = bestJ;
+        this.bestScore = bestScore;
     }
+
+    /**
+     * Walks the best path back to the anchor into {@link #pathI}, {@link #pathJ} and {@link #pathOp}, from
+     * the far end inwards, and returns the number of columns: text row i from 1 (0 for a leading
+     * deletion), template letter j, op. Callers loop over plain arrays instead of a callback per column.
+     */
+    int path() {
+        int i = bestI;
+        int j = bestJ;
+        int need = i + j;
+        if (pathI.length < need) {
+            int n = Math.max(need, 2 * pathI.length);
+            pathI = new int[n];
+            pathJ = new int[n];
+            pathOp = new byte[n];
+        }
+        int[] pi = pathI;
+        int[] pj = pathJ;
+        byte[] po = pathOp;
+        int[] rowLo = this.rowLo;
+        byte[] trace = this.trace;
+        int n = 0;
+        while (i > 0 || j > 0) {
+            int k = j - rowLo[i];
+            byte op = (k >= 0 && k < BAND) ? trace[i * BAND + k] : START;
+            if (op == DIAG) {
+                pi[n] = i;
+                pj[n] = j;
+                po[n++] = DIAG;
+                i--;
+                j--;
+            } else if (op == INS) {
+                pi[n] = i;
+                pj[n] = j;
+                po[n++] = INS;
+                i--;
+            } else if (op == DEL) {
+                pi[n] = i;
+                pj[n] = j;
+                po[n++] = DEL;
+                j--;
+            } else {
+                // only the origin row may end here: leading deletions
+                pi[n] = 0;
+                pj[n] = j;
+                po[n++] = DEL;
+                j--;
+            }
+        }
+        return n;
+    }
+
+    // columns of the last path(), grown on demand
+    int[] pathI = new int[1024];
+    int[] pathJ = new int[1024];
+    byte[] pathOp = new byte[1024];
 
     /**
      * Walks the best path back to the anchor and reports each column to the sink, from the far end
@@ -148,26 +215,9 @@ public final class WrapAligner {
      * op).
      */
     public void traceback(Sink sink) {
-        int i = bestI;
-        int j = bestJ;
-        while (i > 0 || j > 0) {
-            int k = j - rowLo[i];
-            byte op = (k >= 0 && k < BAND) ? trace[i * BAND + k] : START;
-            if (op == DIAG) {
-                sink.column(i, j, DIAG);
-                i--;
-                j--;
-            } else if (op == INS) {
-                sink.column(i, j, INS);
-                i--;
-            } else if (op == DEL) {
-                sink.column(i, j, DEL);
-                j--;
-            } else {
-                // only the origin row may end here: leading deletions
-                sink.column(0, j, DEL);
-                j--;
-            }
+        int n = path();
+        for (int c = 0; c < n; c++) {
+            sink.column(pathI[c], pathJ[c], pathOp[c]);
         }
     }
 
