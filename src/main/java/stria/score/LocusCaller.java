@@ -679,10 +679,10 @@ public final class LocusCaller {
         }
         int hit = 0;
         for (int x = a; x < b - q; x++) {
+            // zero exactly when the codes are equal and in 0..3; counted without branches
             int c = Bases.code(seq[x]);
-            if (c == Bases.code(seq[x + q]) && c >= 0 && c <= 3) {
-                hit++;
-            }
+            int v = (c ^ Bases.code(seq[x + q])) | (c & ~3);
+            hit += 1 - ((v | -v) >>> 31);
         }
         return hit / (double) n;
     }

@@ -38,10 +38,13 @@ public final class WrapAligner {
         Arrays.fill(prev, NEG);
         Arrays.fill(cur, NEG);
     }
-    private byte[] trace = new byte[BAND * 1024];
+    // the ops of a row, two bits per band cell: one store per row instead of one per cell
+    private int[] trace = new int[1024];
+    private static final int START_ROW = (1 << (2 * BAND)) - 1;
     private int[] rowLo = new int[1024];
-    // the template unrolled: tmpl[x] is template letter x (letter 0 unused), grown on demand
-    private byte[] tmpl = new byte[1024];
+    // the template unrolled as scores: tscore[t][x] is the score of text base t against template letter x
+    // (letter 0 unused), grown on demand; one load per cell instead of a comparison and a select
+    private byte[][] tscore = new byte[4][1024];
     private int tmplLen;
 
     // result of the last extend
@@ -77,8 +80,8 @@ public final class WrapAligner {
         Arrays.fill(prev, PAD, PAD + BAND, NEG);
         prev[PAD] = 0;
         rowLo[0] = 0;
-        byte[] trace = this.trace;
-        Arrays.fill(trace, 0, BAND, START);
+        int[] trace = this.trace;
+        trace[0] = START_ROW;
         int lo = 0;
         int prevBestK = 0;
         tmplLen = 0;
@@ -101,24 +104,23 @@ public final class WrapAligner {
                 trace = this.trace;
             }
             rowLo[i] = lo;
-            int tb = i * BAND;
             int rowMax = NEG;
             int rowMaxK = 0;
             if (lo + BAND > tmplLen) {
                 unroll(motif, p, phase, dir, lo + BAND);
             }
-            byte[] tm = tmpl;
+            byte[] sc = tscore[t];
             int left = NEG;
             // the cell above-left of column k + 1 is the cell above column k: each cell of the row above is
             // read once
             int diag = prev[shift - 1];
+            int ops = 0;
             for (int k = 0; k < BAND; k++) {
                 int up = prev[shift + k];
                 // in random sequence every comparison below goes either way at random, so they are written
                 // as selects rather than branches; ties keep the same order of preference (diagonal, then
                 // insertion, then deletion) and the first best cell of the row
-                int eq = ((tm[lo + k] ^ t) - 1) >>> 31;
-                int best = diag + MISMATCH + (MATCH - MISMATCH) * eq;
+                int best = diag + sc[lo + k];
                 int ins = up + GAP;
                 int op = ins > best ? INS : DIAG;
                 best = Math.max(best, ins);
@@ -128,10 +130,11 @@ public final class WrapAligner {
                 cur[PAD + k] = best;
                 left = best;
                 diag = up;
-                trace[tb + k] = (byte) op;
+                ops |= op << (2 * k);
                 rowMaxK = best > rowMax ? k : rowMaxK;
                 rowMax = Math.max(rowMax, best);
             }
+            trace[i] = ops;
             int[] sw = prev;
             prev = cur;
             cur = sw;
@@ -172,11 +175,11 @@ public final class WrapAligner {
         int[] pj = pathJ;
         byte[] po = pathOp;
         int[] rowLo = this.rowLo;
-        byte[] trace = this.trace;
+        int[] trace = this.trace;
         int n = 0;
         while (i > 0 || j > 0) {
             int k = j - rowLo[i];
-            byte op = (k >= 0 && k < BAND) ? trace[i * BAND + k] : START;
+            int op = (k >= 0 && k < BAND) ? (trace[i] >>> (2 * k)) & 3 : START;
             if (op == DIAG) {
                 pi[n] = i;
                 pj[n] = j;
@@ -223,13 +226,23 @@ public final class WrapAligner {
 
     private void unroll(byte[] motif, int p, int phase, int dir, int need) {
         int n = Math.max(need + 64, 2 * tmplLen);
-        if (tmpl.length < n) {
-            tmpl = Arrays.copyOf(tmpl, n);
+        if (tscore[0].length < n) {
+            for (int b = 0; b < 4; b++) {
+                tscore[b] = Arrays.copyOf(tscore[b], n);
+            }
         }
+        byte[] s0 = tscore[0];
+        byte[] s1 = tscore[1];
+        byte[] s2 = tscore[2];
+        byte[] s3 = tscore[3];
         // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]
         int ph = Math.floorMod(phase + dir * (Math.max(tmplLen, 1) - 1), p);
         for (int x = Math.max(tmplLen, 1); x < n; x++) {
-            tmpl[x] = motif[ph];
+            byte letter = motif[ph];
+            s0[x] = (byte) (letter == 0 ? MATCH : MISMATCH);
+            s1[x] = (byte) (letter == 1 ? MATCH : MISMATCH);
+            s2[x] = (byte) (letter == 2 ? MATCH : MISMATCH);
+            s3[x] = (byte) (letter == 3 ? MATCH : MISMATCH);
             ph += dir;
             if (ph == p) {
                 ph = 0;
@@ -249,7 +262,7 @@ public final class WrapAligner {
         if (rows > rowLo.length) {
             int n = Math.max(rows, rowLo.length * 2);
             rowLo = Arrays.copyOf(rowLo, n);
-            trace = Arrays.copyOf(trace, n * BAND);
+            trace = Arrays.copyOf(trace, n);
         }
     }
 }
