@@ -388,22 +388,30 @@ public final class LocusCaller {
         int[] pj = aligner.pathJ;
         byte[] po = aligner.pathOp;
         int lastIns = -1;
+        // j falls by at most one per column: phases are stepped down, not divided out
+        int prevJ = cols > 0 ? pj[0] : 0;
+        int phIns = prevJ % p;
         for (int c = 0; c < cols; c++) {
             int i = pi[c];
             int j = pj[c];
             byte op = po[c];
+            if (j != prevJ) {
+                phIns = phIns == 0 ? p - 1 : phIns - 1;
+                prevJ = j;
+            }
             if (i <= p && op != WrapAligner.DEL || j <= p && op == WrapAligner.DEL) {
                 lastIns = -1;
                 continue;
             }
+            int phDiag = phIns == 0 ? p - 1 : phIns - 1;
             if (op == WrapAligner.DIAG) {
-                cnt[SLOTS * ((j - 1) % p) + Bases.code(seq[s + i - 1])]++;
+                cnt[SLOTS * phDiag + Bases.code(seq[s + i - 1])]++;
             } else if (op == WrapAligner.DEL) {
-                cnt[SLOTS * ((j - 1) % p) + DELETED]++;
+                cnt[SLOTS * phDiag + DELETED]++;
             } else {
-                cnt[SLOTS * (j % p) + INSERTED_BASES]++;
+                cnt[SLOTS * phIns + INSERTED_BASES]++;
                 if (lastIns != j) {
-                    cnt[SLOTS * (j % p) + INSERTED]++;
+                    cnt[SLOTS * phIns + INSERTED]++;
                 }
             }
             lastIns = op == WrapAligner.INS ? j : -1;
@@ -413,11 +421,18 @@ public final class LocusCaller {
         pj = leftAligner.pathJ;
         po = leftAligner.pathOp;
         lastIns = -1;
+        // (p - j) mod p rises by one, wrapping, each time j falls by one
+        prevJ = cols > 0 ? pj[0] : 0;
+        int phLeft = Math.floorMod(p - prevJ, p);
         for (int c = 0; c < cols; c++) {
             int i = pi[c];
             int j = pj[c];
             byte op = po[c];
-            int slot = SLOTS * Math.floorMod(p - j, p);
+            if (j != prevJ) {
+                phLeft = phLeft == p - 1 ? 0 : phLeft + 1;
+                prevJ = j;
+            }
+            int slot = SLOTS * phLeft;
             if (op == WrapAligner.DIAG) {
                 cnt[slot + Bases.code(seq[s - i])]++;
             } else if (op == WrapAligner.DEL) {
@@ -537,12 +552,21 @@ public final class LocusCaller {
         int insertions = 0;
         int deletions = 0;
         int lastIns = -1;
+        // the path runs from the far end inwards and j falls by at most one per column, so the phases are
+        // stepped down instead of divided out: phIns is (phaseA + j) % p, phDiag is (phaseA + j - 1) % p
+        int prevJ = cols > 0 ? pj[0] : 0;
+        int phIns = (phaseA + prevJ) % p;
         for (int c = 0; c < cols; c++) {
             int i = pi[c];
             int j = pj[c];
             byte op = po[c];
+            if (j != prevJ) {
+                phIns = phIns == 0 ? p - 1 : phIns - 1;
+                prevJ = j;
+            }
+            int phDiag = phIns == 0 ? p - 1 : phIns - 1;
             if (op == WrapAligner.DIAG) {
-                int ph = (phaseA + j - 1) % p;
+                int ph = phDiag;
                 phaseAt[i - 1] = ph;
                 int x = Bases.code(seq[a + i - 1]);
                 cnt[SLOTS * ph + x]++;
@@ -552,7 +576,7 @@ public final class LocusCaller {
                     mismatches++;
                 }
             } else if (op == WrapAligner.INS) {
-                int ph = (phaseA + j) % p;
+                int ph = phIns;
                 phaseAt[i - 1] = ph;
                 insertions++;
                 cnt[SLOTS * ph + INSERTED_BASES]++;
@@ -561,7 +585,7 @@ public final class LocusCaller {
                 }
             } else {
                 deletions++;
-                cnt[SLOTS * ((phaseA + j - 1) % p) + DELETED]++;
+                cnt[SLOTS * phDiag + DELETED]++;
             }
             lastIns = op == WrapAligner.INS ? j : -1;
         }
