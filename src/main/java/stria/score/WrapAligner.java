@@ -30,22 +30,23 @@ public final class WrapAligner {
     static final byte DIAG = 0, INS = 1, DEL = 2, START = 3;
 
     private static final int PAD = HALF + 2;
-    private int[] prev = new int[BAND + 2 * PAD];
-    private int[] cur = new int[BAND + 2 * PAD];
-
-    // extend writes only the band of a row, so the pads read as unreachable for the aligner's lifetime
-    {
-        Arrays.fill(prev, NEG);
-        Arrays.fill(cur, NEG);
-    }
-    // the ops of a row, two bits per band cell: one store per row instead of one per cell
-    private int[] trace = new int[1024];
-    private static final int START_ROW = (1 << (2 * BAND)) - 1;
+    /**
+     * Every row of the band is kept, padded so that cells outside the band, and column -1, read as
+     * unreachable: row i occupies {@code [i * ROW, (i + 1) * ROW)} of {@link #cells}, band cell k at
+     * {@code PAD + k}. The path is recovered from the scores themselves, which spares the inner loop the
+     * choice of an operation for every cell; extension never writes the pads.
+     */
+    private static final int ROW = BAND + 2 * PAD;
+    private int[] cells = newCells(1024);
     private int[] rowLo = new int[1024];
     // the template unrolled as scores: tscore[t][x] is the score of text base t against template letter x
     // (letter 0 unused), grown on demand; one load per cell instead of a comparison and a select
     private byte[][] tscore = new byte[4][1024];
     private int tmplLen;
+    // the text of the last extend, read again by the traceback
+    private byte[] seq;
+    private int pos0;
+    private int dir;
 
     // result of the last extend
     private int bestI;
@@ -73,15 +74,13 @@ public final class WrapAligner {
      * ends the text.
      */
     public void extend(byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap, int xdrop) {
-        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable;
-        // the pads are never written, so only the band of the first row needs resetting
-        int[] prev = this.prev;
-        int[] cur = this.cur;
-        Arrays.fill(prev, PAD, PAD + BAND, NEG);
-        prev[PAD] = 0;
+        this.seq = seq;
+        this.pos0 = pos0;
+        this.dir = dir;
+        int[] h = cells;
+        Arrays.fill(h, PAD, PAD + BAND, NEG);
+        h[PAD] = 0;
         rowLo[0] = 0;
-        int[] trace = this.trace;
-        trace[0] = START_ROW;
         int lo = 0;
         int prevBestK = 0;
         tmplLen = 0;
@@ -98,10 +97,9 @@ public final class WrapAligner {
             // centre the band on the best cell of the row above, one template letter further on
             int prevLo = lo;
             lo = Math.max(0, prevLo + prevBestK + 1 - HALF);
-            int shift = lo - prevLo + PAD;
             if (i >= rowLo.length) {
                 ensureRows(i + 1);
-                trace = this.trace;
+                h = cells;
             }
             rowLo[i] = lo;
             int rowMax = NEG;
@@ -110,34 +108,25 @@ public final class WrapAligner {
                 unroll(motif, p, phase, dir, lo + BAND);
             }
             byte[] sc = tscore[t];
+            int hb = i * ROW + PAD;
+            // the same column of the row above, padded: column k is at up + k
+            int up0 = hb - ROW + lo - prevLo;
             int left = NEG;
             // the cell above-left of column k + 1 is the cell above column k: each cell of the row above is
             // read once
-            int diag = prev[shift - 1];
-            int ops = 0;
+            int diag = h[up0 - 1];
             for (int k = 0; k < BAND; k++) {
-                int up = prev[shift + k];
-                // in random sequence every comparison below goes either way at random, so they are written
-                // as selects rather than branches; ties keep the same order of preference (diagonal, then
-                // insertion, then deletion) and the first best cell of the row
-                int best = diag + sc[lo + k];
-                int ins = up + GAP;
-                int op = ins > best ? INS : DIAG;
-                best = Math.max(best, ins);
-                int del = left + GAP;
-                op = del > best ? DEL : op;
-                best = Math.max(best, del);
-                cur[PAD + k] = best;
+                int up = h[up0 + k];
+                // the same preference as the traceback: diagonal, then insertion, then deletion
+                int best = Math.max(diag + sc[lo + k], up + GAP);
+                best = Math.max(best, left + GAP);
+                h[hb + k] = best;
                 left = best;
                 diag = up;
-                ops |= op << (2 * k);
+                // the first best cell of the row
                 rowMaxK = best > rowMax ? k : rowMaxK;
                 rowMax = Math.max(rowMax, best);
             }
-            trace[i] = ops;
-            int[] sw = prev;
-            prev = cur;
-            cur = sw;
             prevBestK = rowMaxK;
             if (rowMax > bestScore) {
                 bestScore = rowMax;
@@ -149,11 +138,33 @@ public final class WrapAligner {
                 break;
             }
         }
-        this.prev = prev;
-        this.cur = cur;
         this.bestI = bestI;
         this.bestJ = bestJ;
         this.bestScore = bestScore;
+    }
+
+    /**
+     * The operation that gave the cell of row i (from 1) at band column k, chosen as the extension chose
+     * it: the diagonal unless an insertion beats it, then a deletion if it beats both.
+     */
+    private int op(int i, int k) {
+        int[] h = cells;
+        int lo = rowLo[i];
+        int hb = i * ROW + PAD;
+        int up0 = hb - ROW + lo - rowLo[i - 1];
+        int t = Bases.code(seq[pos0 + dir * (i - 1)]);
+        int best = h[up0 + k - 1] + tscore[t][lo + k];
+        int op = DIAG;
+        int ins = h[up0 + k] + GAP;
+        if (ins > best) {
+            best = ins;
+            op = INS;
+        }
+        // column -1 of the row is a pad
+        if (h[hb + k - 1] + GAP > best) {
+            op = DEL;
+        }
+        return op;
     }
 
     /**
@@ -175,11 +186,10 @@ public final class WrapAligner {
         int[] pj = pathJ;
         byte[] po = pathOp;
         int[] rowLo = this.rowLo;
-        int[] trace = this.trace;
         int n = 0;
         while (i > 0 || j > 0) {
             int k = j - rowLo[i];
-            int op = (k >= 0 && k < BAND) ? (trace[i] >>> (2 * k)) & 3 : START;
+            int op = (i > 0 && k >= 0 && k < BAND) ? op(i, k) : START;
             if (op == DIAG) {
                 pi[n] = i;
                 pj[n] = j;
@@ -262,7 +272,15 @@ public final class WrapAligner {
         if (rows > rowLo.length) {
             int n = Math.max(rows, rowLo.length * 2);
             rowLo = Arrays.copyOf(rowLo, n);
-            trace = Arrays.copyOf(trace, n);
+            int[] grown = newCells(n);
+            System.arraycopy(cells, 0, grown, 0, cells.length);
+            cells = grown;
         }
+    }
+
+    private static int[] newCells(int rows) {
+        int[] h = new int[rows * ROW];
+        Arrays.fill(h, NEG);
+        return h;
     }
 }
