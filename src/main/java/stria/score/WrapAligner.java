@@ -245,20 +245,34 @@ public final class WrapAligner {
         byte[] s1 = tscore[1];
         byte[] s2 = tscore[2];
         byte[] s3 = tscore[3];
-        // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]
-        int ph = Math.floorMod(phase + dir * (Math.max(tmplLen, 1) - 1), p);
-        for (int x = Math.max(tmplLen, 1); x < n; x++) {
-            byte letter = motif[ph];
-            s0[x] = (byte) (letter == 0 ? MATCH : MISMATCH);
-            s1[x] = (byte) (letter == 1 ? MATCH : MISMATCH);
-            s2[x] = (byte) (letter == 2 ? MATCH : MISMATCH);
-            s3[x] = (byte) (letter == 3 ? MATCH : MISMATCH);
-            ph += dir;
-            if (ph == p) {
-                ph = 0;
-            } else if (ph < 0) {
-                ph = p - 1;
+        // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]; the first period is read from the
+        // motif, the rest is copied from whole periods before, in blocks
+        int x = Math.max(tmplLen, 1);
+        int direct = Math.min(n, 1 + p);
+        if (x < direct) {
+            int ph = Math.floorMod(phase + dir * (x - 1), p);
+            for (; x < direct; x++) {
+                byte letter = motif[ph];
+                s0[x] = (byte) (letter == 0 ? MATCH : MISMATCH);
+                s1[x] = (byte) (letter == 1 ? MATCH : MISMATCH);
+                s2[x] = (byte) (letter == 2 ? MATCH : MISMATCH);
+                s3[x] = (byte) (letter == 3 ? MATCH : MISMATCH);
+                ph += dir;
+                if (ph == p) {
+                    ph = 0;
+                } else if (ph < 0) {
+                    ph = p - 1;
+                }
             }
+        }
+        while (x < n) {
+            int back = (x - 1) / p * p;
+            int len = Math.min(n - x, back);
+            System.arraycopy(s0, x - back, s0, x, len);
+            System.arraycopy(s1, x - back, s1, x, len);
+            System.arraycopy(s2, x - back, s2, x, len);
+            System.arraycopy(s3, x - back, s3, x, len);
+            x += len;
         }
         tmplLen = n;
     }
