@@ -149,7 +149,7 @@ public final class LocusCaller {
             }
         }
         recurrence.find(seq, length, lo, hi, maxP, all);
-        all.sort();
+        all = sorted(all);
         int n = all.size();
 
         // union of reaches: components separated by quiet points
@@ -264,6 +264,49 @@ public final class LocusCaller {
             if (k.start >= from && k.start < to) {
                 out.add(k.toLocus(seq));
             }
+        }
+        return out;
+    }
+
+    /**
+     * The seeds sorted by start, end, period. Seeds sharing a start are few, so a sort of packed
+     * (start, index) keys followed by insertion sort within equal starts does the job with the primitive
+     * sort this class already runs, instead of a general comparison sort.
+     */
+    private static RunList sorted(RunList all) {
+        int n = all.size();
+        long[] key = new long[n];
+        for (int i = 0; i < n; i++) {
+            key[i] = ((long) all.start(i) << 32) | i;
+        }
+        Arrays.sort(key);
+        int[] idx = new int[n];
+        for (int i = 0; i < n; i++) {
+            idx[i] = (int) key[i];
+        }
+        for (int g = 0; g < n; ) {
+            int s = all.start(idx[g]);
+            int h = g + 1;
+            while (h < n && all.start(idx[h]) == s) {
+                h++;
+            }
+            for (int i = g + 1; i < h; i++) {
+                int v = idx[i];
+                int ve = all.end(v);
+                int vp = all.period(v);
+                int j = i - 1;
+                while (j >= g && (all.end(idx[j]) > ve || all.end(idx[j]) == ve && all.period(idx[j]) > vp)) {
+                    idx[j + 1] = idx[j];
+                    j--;
+                }
+                idx[j + 1] = v;
+            }
+            g = h;
+        }
+        RunList out = new RunList(Math.max(n, 1));
+        for (int i = 0; i < n; i++) {
+            int k = idx[i];
+            out.add(all.start(k), all.end(k), all.period(k));
         }
         return out;
     }
