@@ -426,18 +426,14 @@ public final class LocusCaller {
         int[] cnt = clearCounts(p);
         // an insertion of several bases is one vote for its boundary; the seed copy, which the motif was
         // read from, does not vote: with few copies it would outvote the others on its own errors
-        int cols = aligner.path();
-        int[] pi = aligner.pathI;
-        int[] pj = aligner.pathJ;
-        byte[] po = aligner.pathOp;
+        aligner.beginPath();
         int lastIns = -1;
         // j falls by at most one per column: phases are stepped down, not divided out
-        int prevJ = cols > 0 ? pj[0] : 0;
+        int prevJ = aligner.bestJ();
         int phIns = prevJ % p;
-        for (int c = 0; c < cols; c++) {
-            int i = pi[c];
-            int j = pj[c];
-            byte op = po[c];
+        for (int op = aligner.nextColumn(); op >= 0; op = aligner.nextColumn()) {
+            int i = aligner.colI;
+            int j = aligner.colJ;
             if (j != prevJ) {
                 phIns = phIns == 0 ? p - 1 : phIns - 1;
                 prevJ = j;
@@ -459,18 +455,14 @@ public final class LocusCaller {
             }
             lastIns = op == WrapAligner.INS ? j : -1;
         }
-        cols = leftAligner.path();
-        pi = leftAligner.pathI;
-        pj = leftAligner.pathJ;
-        po = leftAligner.pathOp;
+        leftAligner.beginPath();
         lastIns = -1;
         // (p - j) mod p rises by one, wrapping, each time j falls by one
-        prevJ = cols > 0 ? pj[0] : 0;
+        prevJ = leftAligner.bestJ();
         int phLeft = Math.floorMod(p - prevJ, p);
-        for (int c = 0; c < cols; c++) {
-            int i = pi[c];
-            int j = pj[c];
-            byte op = po[c];
+        for (int op = leftAligner.nextColumn(); op >= 0; op = leftAligner.nextColumn()) {
+            int i = leftAligner.colI;
+            int j = leftAligner.colJ;
             if (j != prevJ) {
                 phLeft = phLeft == p - 1 ? 0 : phLeft + 1;
                 prevJ = j;
@@ -586,10 +578,7 @@ public final class LocusCaller {
         int[] phaseAt = new int[len];
         k.phaseAt = phaseAt;
         int[] cnt = clearCounts(p);
-        int cols = aligner.path();
-        int[] pi = aligner.pathI;
-        int[] pj = aligner.pathJ;
-        byte[] po = aligner.pathOp;
+        aligner.beginPath();
         int matches = 0;
         int mismatches = 0;
         int insertions = 0;
@@ -597,12 +586,11 @@ public final class LocusCaller {
         int lastIns = -1;
         // the path runs from the far end inwards and j falls by at most one per column, so the phases are
         // stepped down instead of divided out: phIns is (phaseA + j) % p, phDiag is (phaseA + j - 1) % p
-        int prevJ = cols > 0 ? pj[0] : 0;
+        int prevJ = aligner.bestJ();
         int phIns = (phaseA + prevJ) % p;
-        for (int c = 0; c < cols; c++) {
-            int i = pi[c];
-            int j = pj[c];
-            byte op = po[c];
+        for (int op = aligner.nextColumn(); op >= 0; op = aligner.nextColumn()) {
+            int i = aligner.colI;
+            int j = aligner.colJ;
             if (j != prevJ) {
                 phIns = phIns == 0 ? p - 1 : phIns - 1;
                 prevJ = j;

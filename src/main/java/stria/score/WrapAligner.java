@@ -30,23 +30,22 @@ public final class WrapAligner {
     static final byte DIAG = 0, INS = 1, DEL = 2, START = 3;
 
     private static final int PAD = HALF + 2;
-    /**
-     * Every row of the band is kept, padded so that cells outside the band, and column -1, read as
-     * unreachable: row i occupies {@code [i * ROW, (i + 1) * ROW)} of {@link #cells}, band cell k at
-     * {@code PAD + k}. The path is recovered from the scores themselves, which spares the inner loop the
-     * choice of an operation for every cell; extension never writes the pads.
-     */
-    private static final int ROW = BAND + 2 * PAD;
-    private int[] cells = newCells(1024);
+    private int[] prev = new int[BAND + 2 * PAD];
+    private int[] cur = new int[BAND + 2 * PAD];
+
+    // extend writes only the band of a row, so the pads read as unreachable for the aligner's lifetime
+    {
+        Arrays.fill(prev, NEG);
+        Arrays.fill(cur, NEG);
+    }
+    // the ops of a row, two bits per band cell: one store per row instead of one per cell
+    private int[] trace = new int[1024];
+    private static final int START_ROW = (1 << (2 * BAND)) - 1;
     private int[] rowLo = new int[1024];
     // the template unrolled as scores: tscore[t][x] is the score of text base t against template letter x
     // (letter 0 unused), grown on demand; one load per cell instead of a comparison and a select
     private byte[][] tscore = new byte[4][1024];
     private int tmplLen;
-    // the text of the last extend, read again by the traceback
-    private byte[] seq;
-    private int pos0;
-    private int dir;
 
     // result of the last extend
     private int bestI;
@@ -74,13 +73,15 @@ public final class WrapAligner {
      * ends the text.
      */
     public void extend(byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap, int xdrop) {
-        this.seq = seq;
-        this.pos0 = pos0;
-        this.dir = dir;
-        int[] h = cells;
-        Arrays.fill(h, PAD, PAD + BAND, NEG);
-        h[PAD] = 0;
+        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable;
+        // the pads are never written, so only the band of the first row needs resetting
+        int[] prev = this.prev;
+        int[] cur = this.cur;
+        Arrays.fill(prev, PAD, PAD + BAND, NEG);
+        prev[PAD] = 0;
         rowLo[0] = 0;
+        int[] trace = this.trace;
+        trace[0] = START_ROW;
         int lo = 0;
         int prevBestK = 0;
         tmplLen = 0;
@@ -97,9 +98,10 @@ public final class WrapAligner {
             // centre the band on the best cell of the row above, one template letter further on
             int prevLo = lo;
             lo = Math.max(0, prevLo + prevBestK + 1 - HALF);
+            int shift = lo - prevLo + PAD;
             if (i >= rowLo.length) {
                 ensureRows(i + 1);
-                h = cells;
+                trace = this.trace;
             }
             rowLo[i] = lo;
             int rowMax = NEG;
@@ -108,25 +110,34 @@ public final class WrapAligner {
                 unroll(motif, p, phase, dir, lo + BAND);
             }
             byte[] sc = tscore[t];
-            int hb = i * ROW + PAD;
-            // the same column of the row above, padded: column k is at up + k
-            int up0 = hb - ROW + lo - prevLo;
             int left = NEG;
             // the cell above-left of column k + 1 is the cell above column k: each cell of the row above is
             // read once
-            int diag = h[up0 - 1];
+            int diag = prev[shift - 1];
+            int ops = 0;
             for (int k = 0; k < BAND; k++) {
-                int up = h[up0 + k];
-                // the same preference as the traceback: diagonal, then insertion, then deletion
-                int best = Math.max(diag + sc[lo + k], up + GAP);
-                best = Math.max(best, left + GAP);
-                h[hb + k] = best;
+                int up = prev[shift + k];
+                // in random sequence every comparison below goes either way at random, so they are written
+                // as selects rather than branches; ties keep the same order of preference (diagonal, then
+                // insertion, then deletion) and the first best cell of the row
+                int best = diag + sc[lo + k];
+                int ins = up + GAP;
+                int op = ins > best ? INS : DIAG;
+                best = Math.max(best, ins);
+                int del = left + GAP;
+                op = del > best ? DEL : op;
+                best = Math.max(best, del);
+                cur[PAD + k] = best;
                 left = best;
                 diag = up;
-                // the first best cell of the row
+                ops |= op << (2 * k);
                 rowMaxK = best > rowMax ? k : rowMaxK;
                 rowMax = Math.max(rowMax, best);
             }
+            trace[i] = ops;
+            int[] sw = prev;
+            prev = cur;
+            cur = sw;
             prevBestK = rowMaxK;
             if (rowMax > bestScore) {
                 bestScore = rowMax;
@@ -138,89 +149,57 @@ public final class WrapAligner {
                 break;
             }
         }
+        this.prev = prev;
+        this.cur = cur;
         this.bestI = bestI;
         this.bestJ = bestJ;
         this.bestScore = bestScore;
     }
 
+    // the walk along the best path: the cell reached so far, and the column last returned
+    private int walkI;
+    private int walkJ;
+    int colI;
+    int colJ;
+
+    /** Starts a walk along the best path of the last extend, from the far end inwards. */
+    void beginPath() {
+        walkI = bestI;
+        walkJ = bestJ;
+    }
+
     /**
-     * The operation that gave the cell of row i (from 1) at band column k, chosen as the extension chose
-     * it: the diagonal unless an insertion beats it, then a deletion if it beats both.
+     * The op of the next column of the walk, with its text row (from 1, or 0 for a leading deletion) in
+     * {@link #colI} and its template letter in {@link #colJ}; -1 at the anchor. Callers loop over it
+     * directly instead of receiving a callback per column.
      */
-    private int op(int i, int k) {
-        int[] h = cells;
-        int lo = rowLo[i];
-        int hb = i * ROW + PAD;
-        int up0 = hb - ROW + lo - rowLo[i - 1];
-        int t = Bases.code(seq[pos0 + dir * (i - 1)]);
-        int best = h[up0 + k - 1] + tscore[t][lo + k];
-        int op = DIAG;
-        int ins = h[up0 + k] + GAP;
-        if (ins > best) {
-            best = ins;
-            op = INS;
+    int nextColumn() {
+        int i = walkI;
+        int j = walkJ;
+        if (i == 0 && j == 0) {
+            return -1;
         }
-        // column -1 of the row is a pad
-        if (h[hb + k - 1] + GAP > best) {
+        int k = j - rowLo[i];
+        int op = (k >= 0 && k < BAND) ? (trace[i] >>> (2 * k)) & 3 : START;
+        colJ = j;
+        if (op == DIAG) {
+            colI = i;
+            walkI = i - 1;
+            walkJ = j - 1;
+        } else if (op == INS) {
+            colI = i;
+            walkI = i - 1;
+        } else if (op == DEL) {
+            colI = i;
+            walkJ = j - 1;
+        } else {
+            // only the origin row may end here: leading deletions
+            colI = 0;
+            walkJ = j - 1;
             op = DEL;
         }
         return op;
     }
-
-    /**
-     * Walks the best path back to the anchor into {@link #pathI}, {@link #pathJ} and {@link #pathOp}, from
-     * the far end inwards, and returns the number of columns: text row i from 1 (0 for a leading
-     * deletion), template letter j, op. Callers loop over plain arrays instead of a callback per column.
-     */
-    int path() {
-        int i = bestI;
-        int j = bestJ;
-        int need = i + j;
-        if (pathI.length < need) {
-            int n = Math.max(need, 2 * pathI.length);
-            pathI = new int[n];
-            pathJ = new int[n];
-            pathOp = new byte[n];
-        }
-        int[] pi = pathI;
-        int[] pj = pathJ;
-        byte[] po = pathOp;
-        int[] rowLo = this.rowLo;
-        int n = 0;
-        while (i > 0 || j > 0) {
-            int k = j - rowLo[i];
-            int op = (i > 0 && k >= 0 && k < BAND) ? op(i, k) : START;
-            if (op == DIAG) {
-                pi[n] = i;
-                pj[n] = j;
-                po[n++] = DIAG;
-                i--;
-                j--;
-            } else if (op == INS) {
-                pi[n] = i;
-                pj[n] = j;
-                po[n++] = INS;
-                i--;
-            } else if (op == DEL) {
-                pi[n] = i;
-                pj[n] = j;
-                po[n++] = DEL;
-                j--;
-            } else {
-                // only the origin row may end here: leading deletions
-                pi[n] = 0;
-                pj[n] = j;
-                po[n++] = DEL;
-                j--;
-            }
-        }
-        return n;
-    }
-
-    // columns of the last path(), grown on demand
-    int[] pathI = new int[1024];
-    int[] pathJ = new int[1024];
-    byte[] pathOp = new byte[1024];
 
     /**
      * Walks the best path back to the anchor and reports each column to the sink, from the far end
@@ -228,9 +207,9 @@ public final class WrapAligner {
      * op).
      */
     public void traceback(Sink sink) {
-        int n = path();
-        for (int c = 0; c < n; c++) {
-            sink.column(pathI[c], pathJ[c], pathOp[c]);
+        beginPath();
+        for (int op = nextColumn(); op >= 0; op = nextColumn()) {
+            sink.column(colI, colJ, (byte) op);
         }
     }
 
@@ -286,15 +265,7 @@ public final class WrapAligner {
         if (rows > rowLo.length) {
             int n = Math.max(rows, rowLo.length * 2);
             rowLo = Arrays.copyOf(rowLo, n);
-            int[] grown = newCells(n);
-            System.arraycopy(cells, 0, grown, 0, cells.length);
-            cells = grown;
+            trace = Arrays.copyOf(trace, n);
         }
-    }
-
-    private static int[] newCells(int rows) {
-        int[] h = new int[rows * ROW];
-        Arrays.fill(h, NEG);
-        return h;
     }
 }
