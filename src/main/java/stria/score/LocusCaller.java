@@ -69,6 +69,8 @@ public final class LocusCaller {
 
     private final ScoreSettings settings;
     private final WrapAligner aligner = new WrapAligner();
+    // the left end of a candidate is found while the right end's path is still wanted
+    private final WrapAligner leftAligner = new WrapAligner();
     private final RecurrenceSeeds recurrence = new RecurrenceSeeds();
 
     public LocusCaller(ScoreSettings settings) {
@@ -147,7 +149,7 @@ public final class LocusCaller {
             }
         }
         recurrence.find(seq, length, lo, hi, maxP, all);
-        all.sort();
+        all = sorted(all);
         int n = all.size();
 
         // union of reaches: components separated by quiet points
@@ -266,6 +268,49 @@ public final class LocusCaller {
         return out;
     }
 
+    /**
+     * The seeds sorted by start, end, period. Seeds sharing a start are few, so a sort of packed
+     * (start, index) keys followed by insertion sort within equal starts does the job with the primitive
+     * sort this class already runs, instead of a general comparison sort.
+     */
+    private static RunList sorted(RunList all) {
+        int n = all.size();
+        long[] key = new long[n];
+        for (int i = 0; i < n; i++) {
+            key[i] = ((long) all.start(i) << 32) | i;
+        }
+        Arrays.sort(key);
+        int[] idx = new int[n];
+        for (int i = 0; i < n; i++) {
+            idx[i] = (int) key[i];
+        }
+        for (int g = 0; g < n; ) {
+            int s = all.start(idx[g]);
+            int h = g + 1;
+            while (h < n && all.start(idx[h]) == s) {
+                h++;
+            }
+            for (int i = g + 1; i < h; i++) {
+                int v = idx[i];
+                int ve = all.end(v);
+                int vp = all.period(v);
+                int j = i - 1;
+                while (j >= g && (all.end(idx[j]) > ve || all.end(idx[j]) == ve && all.period(idx[j]) > vp)) {
+                    idx[j + 1] = idx[j];
+                    j--;
+                }
+                idx[j + 1] = v;
+            }
+            g = h;
+        }
+        RunList out = new RunList(Math.max(n, 1));
+        for (int i = 0; i < n; i++) {
+            int k = idx[i];
+            out.add(all.start(k), all.end(k), all.period(k));
+        }
+        return out;
+    }
+
     /** Index of the component whose half-open interior holds x, or -1. */
     private static int componentAt(int[] cs, int[] ce, int comps, int x) {
         int l = 0;
@@ -366,50 +411,74 @@ public final class LocusCaller {
             }
             m0[k] = (byte) code;
         }
-        int[] cnt = clearCounts(p);
         int xd = xdrop(p);
-        // the provisional consensus is voted on the first copies only; the final one on the whole locus
+        // the provisional consensus is voted on the first copies only; the final one on the whole locus.
+        // Both ends are found before any vote is counted: most candidates fail the length test and their
+        // paths are never walked
         aligner.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
         int right = aligner.bestI();
-        // an insertion of several bases is one vote for its boundary; the seed copy, which the motif was
-        // read from, does not vote: with few copies it would outvote the others on its own errors
-        final int[] lastIns = {-1};
-        aligner.traceback((i, j, op) -> {
-            if (i <= p && op != WrapAligner.DEL || j <= p && op == WrapAligner.DEL) {
-                lastIns[0] = -1;
-                return;
-            }
-            if (op == WrapAligner.DIAG) {
-                cnt[SLOTS * ((j - 1) % p) + Bases.code(seq[s + i - 1])]++;
-            } else if (op == WrapAligner.DEL) {
-                cnt[SLOTS * ((j - 1) % p) + DELETED]++;
-            } else {
-                cnt[SLOTS * (j % p) + INSERTED_BASES]++;
-                if (lastIns[0] != j) {
-                    cnt[SLOTS * (j % p) + INSERTED]++;
-                }
-            }
-            lastIns[0] = op == WrapAligner.INS ? j : -1;
-        });
-        aligner.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
-        int left = aligner.bestI();
-        int leftJ = aligner.bestJ();
-        lastIns[0] = -1;
-        aligner.traceback((i, j, op) -> {
-            if (op == WrapAligner.DIAG) {
-                cnt[SLOTS * Math.floorMod(p - j, p) + Bases.code(seq[s - i])]++;
-            } else if (op == WrapAligner.DEL) {
-                cnt[SLOTS * Math.floorMod(p - j, p) + DELETED]++;
-            } else {
-                cnt[SLOTS * Math.floorMod(p - j, p) + INSERTED_BASES]++;
-                if (lastIns[0] != j) {
-                    cnt[SLOTS * Math.floorMod(p - j, p) + INSERTED]++;
-                }
-            }
-            lastIns[0] = op == WrapAligner.INS ? j : -1;
-        });
+        leftAligner.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
+        int left = leftAligner.bestI();
+        int leftJ = leftAligner.bestJ();
         if (left + right < p + SEED_EXTRA) {
             return null;
+        }
+        int[] cnt = clearCounts(p);
+        // an insertion of several bases is one vote for its boundary; the seed copy, which the motif was
+        // read from, does not vote: with few copies it would outvote the others on its own errors
+        aligner.beginPath();
+        int lastIns = -1;
+        // j falls by at most one per column: phases are stepped down, not divided out
+        int prevJ = aligner.bestJ();
+        int phIns = prevJ % p;
+        for (int op = aligner.nextColumn(); op >= 0; op = aligner.nextColumn()) {
+            int i = aligner.colI;
+            int j = aligner.colJ;
+            if (j != prevJ) {
+                phIns = phIns == 0 ? p - 1 : phIns - 1;
+                prevJ = j;
+            }
+            if (i <= p && op != WrapAligner.DEL || j <= p && op == WrapAligner.DEL) {
+                lastIns = -1;
+                continue;
+            }
+            int phDiag = phIns == 0 ? p - 1 : phIns - 1;
+            if (op == WrapAligner.DIAG) {
+                cnt[SLOTS * phDiag + Bases.code(seq[s + i - 1])]++;
+            } else if (op == WrapAligner.DEL) {
+                cnt[SLOTS * phDiag + DELETED]++;
+            } else {
+                cnt[SLOTS * phIns + INSERTED_BASES]++;
+                if (lastIns != j) {
+                    cnt[SLOTS * phIns + INSERTED]++;
+                }
+            }
+            lastIns = op == WrapAligner.INS ? j : -1;
+        }
+        leftAligner.beginPath();
+        lastIns = -1;
+        // (p - j) mod p rises by one, wrapping, each time j falls by one
+        prevJ = leftAligner.bestJ();
+        int phLeft = Math.floorMod(p - prevJ, p);
+        for (int op = leftAligner.nextColumn(); op >= 0; op = leftAligner.nextColumn()) {
+            int i = leftAligner.colI;
+            int j = leftAligner.colJ;
+            if (j != prevJ) {
+                phLeft = phLeft == p - 1 ? 0 : phLeft + 1;
+                prevJ = j;
+            }
+            int slot = SLOTS * phLeft;
+            if (op == WrapAligner.DIAG) {
+                cnt[slot + Bases.code(seq[s - i])]++;
+            } else if (op == WrapAligner.DEL) {
+                cnt[slot + DELETED]++;
+            } else {
+                cnt[slot + INSERTED_BASES]++;
+                if (lastIns != j) {
+                    cnt[slot + INSERTED]++;
+                }
+            }
+            lastIns = op == WrapAligner.INS ? j : -1;
         }
         int a = s - left;
         int phaseA = left == 0 ? 0 : Math.floorMod(p - leftJ, p);
@@ -509,32 +578,52 @@ public final class LocusCaller {
         int[] phaseAt = new int[len];
         k.phaseAt = phaseAt;
         int[] cnt = clearCounts(p);
-        final int[] lastIns = {-1};
-        aligner.traceback((i, j, op) -> {
+        aligner.beginPath();
+        int matches = 0;
+        int mismatches = 0;
+        int insertions = 0;
+        int deletions = 0;
+        int lastIns = -1;
+        // the path runs from the far end inwards and j falls by at most one per column, so the phases are
+        // stepped down instead of divided out: phIns is (phaseA + j) % p, phDiag is (phaseA + j - 1) % p
+        int prevJ = aligner.bestJ();
+        int phIns = (phaseA + prevJ) % p;
+        for (int op = aligner.nextColumn(); op >= 0; op = aligner.nextColumn()) {
+            int i = aligner.colI;
+            int j = aligner.colJ;
+            if (j != prevJ) {
+                phIns = phIns == 0 ? p - 1 : phIns - 1;
+                prevJ = j;
+            }
+            int phDiag = phIns == 0 ? p - 1 : phIns - 1;
             if (op == WrapAligner.DIAG) {
-                int ph = (phaseA + j - 1) % p;
+                int ph = phDiag;
                 phaseAt[i - 1] = ph;
                 int x = Bases.code(seq[a + i - 1]);
                 cnt[SLOTS * ph + x]++;
                 if (motif[ph] == x) {
-                    k.matches++;
+                    matches++;
                 } else {
-                    k.mismatches++;
+                    mismatches++;
                 }
             } else if (op == WrapAligner.INS) {
-                int ph = (phaseA + j) % p;
+                int ph = phIns;
                 phaseAt[i - 1] = ph;
-                k.insertions++;
+                insertions++;
                 cnt[SLOTS * ph + INSERTED_BASES]++;
-                if (lastIns[0] != j) {
+                if (lastIns != j) {
                     cnt[SLOTS * ph + INSERTED]++;
                 }
             } else {
-                k.deletions++;
-                cnt[SLOTS * ((phaseA + j - 1) % p) + DELETED]++;
+                deletions++;
+                cnt[SLOTS * phDiag + DELETED]++;
             }
-            lastIns[0] = op == WrapAligner.INS ? j : -1;
-        });
+            lastIns = op == WrapAligner.INS ? j : -1;
+        }
+        k.matches = matches;
+        k.mismatches = mismatches;
+        k.insertions = insertions;
+        k.deletions = deletions;
         return k;
     }
 
@@ -645,10 +734,10 @@ public final class LocusCaller {
         }
         int hit = 0;
         for (int x = a; x < b - q; x++) {
+            // zero exactly when the codes are equal and in 0..3; counted without branches
             int c = Bases.code(seq[x]);
-            if (c == Bases.code(seq[x + q]) && c >= 0 && c <= 3) {
-                hit++;
-            }
+            int v = (c ^ Bases.code(seq[x + q])) | (c & ~3);
+            hit += 1 - ((v | -v) >>> 31);
         }
         return hit / (double) n;
     }
@@ -680,7 +769,8 @@ public final class LocusCaller {
             // shortest first: the largest divisor count gives the shortest unit
             int c = Math.round(p / (float) m);
             for (int q = Math.max(1, c - 2); q <= c + 2 && q < p; q++) {
-                if (agreement(seq, a, b, q) >= base - 0.05 && agreement(seq, a, b, q) >= 0.5) {
+                double g = agreement(seq, a, b, q);
+                if (g >= base - 0.05 && g >= 0.5) {
                     return q;
                 }
             }

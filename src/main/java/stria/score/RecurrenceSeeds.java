@@ -134,7 +134,10 @@ final class RecurrenceSeeds {
 
     /** 1 when the base at x is A, C, G or T and equals the base d before it (either case). */
     private static int agrees(byte[] seq, int x, int d) {
+        // zero exactly when the codes are equal and in 0..3: chance agreement is a coin toss for the branch
+        // predictor, so the count is formed without branches
         int a = Bases.code(seq[x]);
-        return a >= 0 && a <= 3 && a == Bases.code(seq[x - d]) ? 1 : 0;
+        int v = (a ^ Bases.code(seq[x - d])) | (a & ~3);
+        return 1 - ((v | -v) >>> 31);
     }
 }

@@ -32,10 +32,19 @@ public final class WrapAligner {
     private static final int PAD = HALF + 2;
     private int[] prev = new int[BAND + 2 * PAD];
     private int[] cur = new int[BAND + 2 * PAD];
-    private byte[] trace = new byte[BAND * 1024];
+
+    // extend writes only the band of a row, so the pads read as unreachable for the aligner's lifetime
+    {
+        Arrays.fill(prev, NEG);
+        Arrays.fill(cur, NEG);
+    }
+    // the ops of a row, two bits per band cell: one store per row instead of one per cell
+    private int[] trace = new int[1024];
+    private static final int START_ROW = (1 << (2 * BAND)) - 1;
     private int[] rowLo = new int[1024];
-    // the template unrolled: tmpl[x] is template letter x (letter 0 unused), grown on demand
-    private byte[] tmpl = new byte[1024];
+    // the template unrolled as scores: tscore[t][x] is the score of text base t against template letter x
+    // (letter 0 unused), grown on demand; one load per cell instead of a comparison and a select
+    private byte[][] tscore = new byte[4][1024];
     private int tmplLen;
 
     // result of the last extend
@@ -64,21 +73,22 @@ public final class WrapAligner {
      * ends the text.
      */
     public void extend(byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap, int xdrop) {
-        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable
+        // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable;
+        // the pads are never written, so only the band of the first row needs resetting
         int[] prev = this.prev;
         int[] cur = this.cur;
-        Arrays.fill(prev, NEG);
-        Arrays.fill(cur, NEG);
+        Arrays.fill(prev, PAD, PAD + BAND, NEG);
         prev[PAD] = 0;
-        ensureRows(1);
         rowLo[0] = 0;
-        Arrays.fill(trace, 0, BAND, START);
+        int[] trace = this.trace;
+        trace[0] = START_ROW;
         int lo = 0;
         int prevBestK = 0;
         tmplLen = 0;
-        bestI = 0;
-        bestJ = 0;
-        bestScore = 0;
+        int bestI = 0;
+        int bestJ = 0;
+        int bestScore = 0;
+        int floor = -xdrop;
         int pos = pos0;
         for (int i = 1; i <= cap; i++, pos += dir) {
             int t = Bases.code(seq[pos]);
@@ -91,40 +101,40 @@ public final class WrapAligner {
             int shift = lo - prevLo + PAD;
             if (i >= rowLo.length) {
                 ensureRows(i + 1);
+                trace = this.trace;
             }
             rowLo[i] = lo;
-            int tb = i * BAND;
             int rowMax = NEG;
             int rowMaxK = 0;
             if (lo + BAND > tmplLen) {
                 unroll(motif, p, phase, dir, lo + BAND);
             }
-            byte[] tm = tmpl;
+            byte[] sc = tscore[t];
             int left = NEG;
+            // the cell above-left of column k + 1 is the cell above column k: each cell of the row above is
+            // read once
+            int diag = prev[shift - 1];
+            int ops = 0;
             for (int k = 0; k < BAND; k++) {
-                int pk = k + shift; // padded index of the same column in the row above
-                // entering column j diagonally consumes template letter j; column 0 has no letter, but its
-                // diagonal predecessor is unreachable anyway
-                int best = prev[pk - 1] + (tm[lo + k] == t ? MATCH : MISMATCH);
-                byte op = DIAG;
-                int ins = prev[pk] + GAP;
-                if (ins > best) {
-                    best = ins;
-                    op = INS;
-                }
+                int up = prev[shift + k];
+                // in random sequence every comparison below goes either way at random, so they are written
+                // as selects rather than branches; ties keep the same order of preference (diagonal, then
+                // insertion, then deletion) and the first best cell of the row
+                int best = diag + sc[lo + k];
+                int ins = up + GAP;
+                int op = ins > best ? INS : DIAG;
+                best = Math.max(best, ins);
                 int del = left + GAP;
-                if (del > best) {
-                    best = del;
-                    op = DEL;
-                }
+                op = del > best ? DEL : op;
+                best = Math.max(best, del);
                 cur[PAD + k] = best;
                 left = best;
-                trace[tb + k] = op;
-                if (best > rowMax) {
-                    rowMax = best;
-                    rowMaxK = k;
-                }
+                diag = up;
+                ops |= op << (2 * k);
+                rowMaxK = best > rowMax ? k : rowMaxK;
+                rowMax = Math.max(rowMax, best);
             }
+            trace[i] = ops;
             int[] sw = prev;
             prev = cur;
             cur = sw;
@@ -133,13 +143,62 @@ public final class WrapAligner {
                 bestScore = rowMax;
                 bestI = i;
                 bestJ = lo + rowMaxK;
+                floor = rowMax - xdrop;
             }
-            if (rowMax < bestScore - xdrop) {
+            if (rowMax < floor) {
                 break;
             }
         }
         this.prev = prev;
         this.cur = cur;
+        this.bestI = bestI;
+        this.bestJ = bestJ;
+        this.bestScore = bestScore;
+    }
+
+    // the walk along the best path: the cell reached so far, and the column last returned
+    private int walkI;
+    private int walkJ;
+    int colI;
+    int colJ;
+
+    /** Starts a walk along the best path of the last extend, from the far end inwards. */
+    void beginPath() {
+        walkI = bestI;
+        walkJ = bestJ;
+    }
+
+    /**
+     * The op of the next column of the walk, with its text row (from 1, or 0 for a leading deletion) in
+     * {@link #colI} and its template letter in {@link #colJ}; -1 at the anchor. Callers loop over it
+     * directly instead of receiving a callback per column.
+     */
+    int nextColumn() {
+        int i = walkI;
+        int j = walkJ;
+        if (i == 0 && j == 0) {
+            return -1;
+        }
+        int k = j - rowLo[i];
+        int op = (k >= 0 && k < BAND) ? (trace[i] >>> (2 * k)) & 3 : START;
+        colJ = j;
+        if (op == DIAG) {
+            colI = i;
+            walkI = i - 1;
+            walkJ = j - 1;
+        } else if (op == INS) {
+            colI = i;
+            walkI = i - 1;
+        } else if (op == DEL) {
+            colI = i;
+            walkJ = j - 1;
+        } else {
+            // only the origin row may end here: leading deletions
+            colI = 0;
+            walkJ = j - 1;
+            op = DEL;
+        }
+        return op;
     }
 
     /**
@@ -148,44 +207,51 @@ public final class WrapAligner {
      * op).
      */
     public void traceback(Sink sink) {
-        int i = bestI;
-        int j = bestJ;
-        while (i > 0 || j > 0) {
-            int k = j - rowLo[i];
-            byte op = (k >= 0 && k < BAND) ? trace[i * BAND + k] : START;
-            if (op == DIAG) {
-                sink.column(i, j, DIAG);
-                i--;
-                j--;
-            } else if (op == INS) {
-                sink.column(i, j, INS);
-                i--;
-            } else if (op == DEL) {
-                sink.column(i, j, DEL);
-                j--;
-            } else {
-                // only the origin row may end here: leading deletions
-                sink.column(0, j, DEL);
-                j--;
-            }
+        beginPath();
+        for (int op = nextColumn(); op >= 0; op = nextColumn()) {
+            sink.column(colI, colJ, (byte) op);
         }
     }
 
     private void unroll(byte[] motif, int p, int phase, int dir, int need) {
         int n = Math.max(need + 64, 2 * tmplLen);
-        if (tmpl.length < n) {
-            tmpl = Arrays.copyOf(tmpl, n);
-        }
-        // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]
-        int ph = Math.floorMod(phase + dir * (Math.max(tmplLen, 1) - 1), p);
-        for (int x = Math.max(tmplLen, 1); x < n; x++) {
-            tmpl[x] = motif[ph];
-            ph += dir;
-            if (ph == p) {
-                ph = 0;
-            } else if (ph < 0) {
-                ph = p - 1;
+        if (tscore[0].length < n) {
+            for (int b = 0; b < 4; b++) {
+                tscore[b] = Arrays.copyOf(tscore[b], n);
             }
+        }
+        byte[] s0 = tscore[0];
+        byte[] s1 = tscore[1];
+        byte[] s2 = tscore[2];
+        byte[] s3 = tscore[3];
+        // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]; the first period is read from the
+        // motif, the rest is copied from whole periods before, in blocks
+        int x = Math.max(tmplLen, 1);
+        int direct = Math.min(n, 1 + p);
+        if (x < direct) {
+            int ph = Math.floorMod(phase + dir * (x - 1), p);
+            for (; x < direct; x++) {
+                byte letter = motif[ph];
+                s0[x] = (byte) (letter == 0 ? MATCH : MISMATCH);
+                s1[x] = (byte) (letter == 1 ? MATCH : MISMATCH);
+                s2[x] = (byte) (letter == 2 ? MATCH : MISMATCH);
+                s3[x] = (byte) (letter == 3 ? MATCH : MISMATCH);
+                ph += dir;
+                if (ph == p) {
+                    ph = 0;
+                } else if (ph < 0) {
+                    ph = p - 1;
+                }
+            }
+        }
+        while (x < n) {
+            int back = (x - 1) / p * p;
+            int len = Math.min(n - x, back);
+            System.arraycopy(s0, x - back, s0, x, len);
+            System.arraycopy(s1, x - back, s1, x, len);
+            System.arraycopy(s2, x - back, s2, x, len);
+            System.arraycopy(s3, x - back, s3, x, len);
+            x += len;
         }
         tmplLen = n;
     }
@@ -199,7 +265,7 @@ public final class WrapAligner {
         if (rows > rowLo.length) {
             int n = Math.max(rows, rowLo.length * 2);
             rowLo = Arrays.copyOf(rowLo, n);
-            trace = Arrays.copyOf(trace, n * BAND);
+            trace = Arrays.copyOf(trace, n);
         }
     }
 }
