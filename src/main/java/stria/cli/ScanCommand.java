@@ -172,7 +172,7 @@ public final class ScanCommand implements Callable<Integer> {
                 String tbi = bedPath + ".tbi";
                 var tmpIndex = outputs.companion(bedPath, tbi);
                 String bp = bedPath;
-                outputs.afterClose(bedPath, () -> Tabix.indexBed(tempOf(outputs, bp), tmpIndex, bp));
+                outputs.afterClose(bedPath, () -> Tabix.indexBed(outputs.tempPath(bp), tmpIndex, bp));
             }
             ResultWriter writer = new ResultWriter(bedOut, bedPath, tsvOut, tsv);
             MaskedFastaWriter maskWriter = masked == null ? null : new MaskedFastaWriter(outputs.open(masked),
@@ -234,10 +234,6 @@ public final class ScanCommand implements Callable<Integer> {
         return 0;
     }
 
-    private static java.nio.file.Path tempOf(AtomicOutputs outputs, String path) {
-        return outputs.tempPath(path);
-    }
-
     private List<ScanUnit> units(List<GenomeReader> readers, ScanSettings settings, List<ResultHeader.Span> spans) {
         List<ScanUnit> units = new ArrayList<>();
         Map<GenomeReader, ScanUnit.Source> sources = new java.util.IdentityHashMap<>();
@@ -256,7 +252,7 @@ public final class ScanCommand implements Callable<Integer> {
             // regions are scanned in genome order, overlapping ones merged, so output stays sorted and unique
             List<long[]> ranges = new ArrayList<>();
             for (String text : settings.regions()) {
-                Region g = parseRegion(text, flat, readers);
+                Region g = parseRegion(text, flat);
                 int ordinal = -1;
                 for (int i = 0; i < flat.size(); i++) {
                     if (flat.get(i).name().equals(g.contig())) {
@@ -345,7 +341,7 @@ public final class ScanCommand implements Callable<Integer> {
     private record ShardTarget(GenomeReader reader, ContigInfo contig) {
     }
 
-    private Region parseRegion(String text, List<ContigInfo> flat, List<GenomeReader> readers) {
+    private Region parseRegion(String text, List<ContigInfo> flat) {
         try {
             return Region.parse(text, flat);
         } catch (IllegalArgumentException e) {

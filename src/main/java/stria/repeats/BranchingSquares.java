@@ -97,7 +97,7 @@ final class BranchingSquares {
      * Packs t[i - 10, i + 21) of the suffix i = sa[r] into context[r], two bits a letter, t[i - 10] lowest;
      * negative when that window leaves the string or holds a BREAK. The traversal touches each suffix once
      * per interval where it sits in a small child, about log n times; reading this word in rank order
-     * instead of the text at a random place is what keeps the short periods cheap. The window slides
+     * instead of the text at a random place is what keeps the short periods cheap. The window moves
      * along the text and is scattered to the ranks, since random writes stall less than random reads.
      */
     private void packContexts(byte[] t, int f, int[] isa, int n) {

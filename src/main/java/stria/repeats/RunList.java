@@ -11,7 +11,7 @@ public final class RunList {
     private int[] start;
     private int[] end;
     private int[] period;
-    private int size;
+    private int count;
 
     public RunList() {
         this(64);
@@ -25,20 +25,20 @@ public final class RunList {
     }
 
     public void add(int s, int e, int p) {
-        if (size == start.length) {
+        if (count == start.length) {
             int c = start.length * 2;
             start = Arrays.copyOf(start, c);
             end = Arrays.copyOf(end, c);
             period = Arrays.copyOf(period, c);
         }
-        start[size] = s;
-        end[size] = e;
-        period[size] = p;
-        size++;
+        start[count] = s;
+        end[count] = e;
+        period[count] = p;
+        count++;
     }
 
     public int size() {
-        return size;
+        return count;
     }
 
     public int start(int i) {
@@ -54,28 +54,28 @@ public final class RunList {
     }
 
     public void clear() {
-        size = 0;
+        count = 0;
     }
 
     /** Sorts by start, then end, then period: the order every output uses. */
     public void sort() {
-        if (size < 2) {
+        if (count < 2) {
             return;
         }
         // pack (start, end) into a long key alongside the index; period breaks remaining ties
-        long[] keys = new long[size];
-        for (int i = 0; i < size; i++) {
+        long[] keys = new long[count];
+        for (int i = 0; i < count; i++) {
             keys[i] = ((long) start[i] << 32) | (end[i] & 0xFFFFFFFFL);
         }
-        int[] idx = new int[size];
-        for (int i = 0; i < size; i++) {
+        int[] idx = new int[count];
+        for (int i = 0; i < count; i++) {
             idx[i] = i;
         }
         sortIndices(idx, keys);
         int[] ns = new int[start.length];
         int[] ne = new int[start.length];
         int[] np = new int[start.length];
-        for (int i = 0; i < size; i++) {
+        for (int i = 0; i < count; i++) {
             ns[i] = start[idx[i]];
             ne[i] = end[idx[i]];
             np[i] = period[idx[i]];
@@ -132,7 +132,7 @@ public final class RunList {
     @Override
     public String toString() {
         StringBuilder sb = new StringBuilder("[");
-        for (int i = 0; i < size; i++) {
+        for (int i = 0; i < count; i++) {
             if (i > 0) {
                 sb.append(", ");
             }

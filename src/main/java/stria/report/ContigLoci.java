@@ -9,7 +9,7 @@ import java.util.Arrays;
  * overlapping parts are combined.
  */
 public final class ContigLoci {
-    private int size;
+    private int count;
     private int[] start = new int[16];
     private int[] end = new int[16];
     private int[] period = new int[16];
@@ -18,8 +18,8 @@ public final class ContigLoci {
     private float[] purity = new float[16];
 
     public void add(int s, int e, int p, int motifId, int classId, float pur) {
-        if (size == start.length) {
-            int n = size * 2;
+        if (count == start.length) {
+            int n = count * 2;
             start = Arrays.copyOf(start, n);
             end = Arrays.copyOf(end, n);
             period = Arrays.copyOf(period, n);
@@ -27,18 +27,18 @@ public final class ContigLoci {
             motifClass = Arrays.copyOf(motifClass, n);
             purity = Arrays.copyOf(purity, n);
         }
-        start[size] = s;
-        end[size] = e;
-        period[size] = p;
-        motif[size] = motifId;
-        motifClass[size] = classId;
-        purity[size] = pur;
-        size++;
+        start[count] = s;
+        end[count] = e;
+        period[count] = p;
+        motif[count] = motifId;
+        motifClass[count] = classId;
+        purity[count] = pur;
+        count++;
     }
 
     public void sortAndDeduplicate() {
-        Integer[] order = new Integer[size];
-        for (int i = 0; i < size; i++) {
+        Integer[] order = new Integer[count];
+        for (int i = 0; i < count; i++) {
             order[i] = i;
         }
         Arrays.sort(order, (a, b) -> {
@@ -51,10 +51,10 @@ public final class ContigLoci {
             }
             return c != 0 ? c : Integer.compare(motif[a], motif[b]);
         });
-        int[] s2 = new int[size], e2 = new int[size], p2 = new int[size], m2 = new int[size], c2 = new int[size];
-        float[] u2 = new float[size];
+        int[] s2 = new int[count], e2 = new int[count], p2 = new int[count], m2 = new int[count], c2 = new int[count];
+        float[] u2 = new float[count];
         int n = 0;
-        for (int k = 0; k < size; k++) {
+        for (int k = 0; k < count; k++) {
             int i = order[k];
             if (n > 0 && s2[n - 1] == start[i] && e2[n - 1] == end[i] && p2[n - 1] == period[i]
                     && m2[n - 1] == motif[i]) {
@@ -74,11 +74,11 @@ public final class ContigLoci {
         motif = m2;
         motifClass = c2;
         purity = u2;
-        size = n;
+        count = n;
     }
 
     public int size() {
-        return size;
+        return count;
     }
 
     public int start(int i) {

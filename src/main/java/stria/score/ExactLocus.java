@@ -1,10 +1,10 @@
 package stria.score;
 
-/** Builds the {@link Locus} of an exact run: purity 1, no edits, motif read at the run's first copy. */
+/**
+ * Builds the {@link Locus} of an exact run: purity 1, no edits, motif read at the run's first copy, and the
+ * score every column of a perfect alignment earns.
+ */
 public final class ExactLocus {
-    /** Points per aligned base that matches the consensus; an exact run scores this times its length. */
-    public static final int MATCH_POINTS = 2;
-
     private ExactLocus() {
     }
 
@@ -15,7 +15,7 @@ public final class ExactLocus {
         }
         String motif = new String(m);
         return new Locus(start, end, period, motif, MotifClass.of(motif), (end - start) / (double) period, 1.0,
-                0, 0, 0, MATCH_POINTS * (end - start), entropy(seq, start, end));
+                0, 0, 0, WrapAligner.MATCH * (end - start), entropy(seq, start, end));
     }
 
     /** Shannon entropy in bits of the A, C, G, T composition of {@code seq[start, end)}. */

@@ -549,7 +549,7 @@ public final class LocusCaller {
         }
         m = Arrays.copyOf(m, n);
         mapped = Math.min(mapped, n - 1);
-        int root = primitiveRoot(m);
+        int root = MotifClass.primitiveRoot(m);
         if (root < n) {
             m = Arrays.copyOf(m, root);
             mapped %= root;
@@ -685,7 +685,7 @@ public final class LocusCaller {
             ml[ph] = (byte) argmax4(left, ph, k.motif[ph]);
             mr[ph] = (byte) argmax4(right, ph, k.motif[ph]);
         }
-        if (primitiveRoot(ml) < p || primitiveRoot(mr) < p) {
+        if (MotifClass.primitiveRoot(ml) < p || MotifClass.primitiveRoot(mr) < p) {
             out.add(k);
             return;
         }
@@ -776,23 +776,6 @@ public final class LocusCaller {
             }
         }
         return -1;
-    }
-
-    static int primitiveRoot(byte[] m) {
-        int n = m.length;
-        outer:
-        for (int d = 1; d < n; d++) {
-            if (n % d != 0) {
-                continue;
-            }
-            for (int i = d; i < n; i++) {
-                if (m[i] != m[i - d]) {
-                    continue outer;
-                }
-            }
-            return d;
-        }
-        return n;
     }
 
     /**

@@ -60,4 +60,22 @@ public final class MotifClass {
         }
         return s.substring(k) + s.substring(0, k);
     }
+
+    /** Length of the shortest prefix whose repetition makes the motif (the motif's length when primitive). */
+    public static int primitiveRoot(byte[] m) {
+        int n = m.length;
+        outer:
+        for (int d = 1; d < n; d++) {
+            if (n % d != 0) {
+                continue;
+            }
+            for (int i = d; i < n; i++) {
+                if (m[i] != m[i - d]) {
+                    continue outer;
+                }
+            }
+            return d;
+        }
+        return n;
+    }
 }

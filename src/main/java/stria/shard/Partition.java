@@ -15,8 +15,8 @@ import java.util.List;
  *
  * <p>Cuts are chosen so that every shard size lies in one window {@code [m, m + w]}: with {@code w = u}
  * such a choice always exists (the set of cut points reachable after k shards is then every cut point
- * between a least and a greatest one, both found greedily, so feasibility of a given {@code m} is a check
- * of two numbers), and the largest feasible {@code m} is found by bisection. Within the freedom that
+ * between a least and a greatest one, both found greedily, so whether a given {@code m} is feasible
+ * takes a check of two numbers), and the largest feasible {@code m} is found by bisection. Within the freedom that
  * window leaves, each cut goes to a contig end when one is in reach, so contigs stay whole where balance
  * allows, and otherwise to the cut point nearest to the ideal {@code k * total / n}. Everything is
  * integer arithmetic on the lengths alone, so every task of an array computes the same partition.

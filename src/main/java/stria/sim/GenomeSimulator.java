@@ -390,20 +390,7 @@ public final class GenomeSimulator implements Callable<Integer> {
 
     /** Whether no proper divisor d of the length makes the motif a repetition of its first d letters. */
     static boolean primitive(byte[] m) {
-        int n = m.length;
-        outer:
-        for (int d = 1; d < n; d++) {
-            if (n % d != 0) {
-                continue;
-            }
-            for (int i = d; i < n; i++) {
-                if (m[i] != m[i - d]) {
-                    continue outer;
-                }
-            }
-            return false;
-        }
-        return true;
+        return stria.score.MotifClass.primitiveRoot(m) == m.length;
     }
 
     /**

@@ -16,7 +16,7 @@ import stria.io.Bases;
  * field notes; the source is named beside each check.
  */
 class RunFinderPublishedTest {
-    private static final int ANY_PERIOD = Integer.MAX_VALUE;
+    private static final int NO_PERIOD_LIMIT = Integer.MAX_VALUE;
 
     /** Fibonacci words f0 = b, f1 = a, fn = f(n-1) f(n-2), with a = 0 and b = 1. */
     static byte[][] fibonacciWords(int upTo) {
@@ -42,11 +42,11 @@ class RunFinderPublishedTest {
         assertThat(f[25].length).isGreaterThanOrEqualTo(100_000);
         // Kolpakov & Kucherov 1999 (from memory, per the field notes): f10 has 89 letters and 65 runs
         assertThat(f[10]).hasSize(89);
-        assertThat(runs(f[10], ANY_PERIOD).size()).isEqualTo(65);
+        assertThat(runs(f[10], NO_PERIOD_LIMIT).size()).isEqualTo(65);
         RunFinder finder = new RunFinder();
         for (int n = 5; n <= 25; n++) {
             RunList out = new RunList();
-            finder.find(f[n], 0, f[n].length, ANY_PERIOD, out);
+            finder.find(f[n], 0, f[n].length, NO_PERIOD_LIMIT, out);
             // Kolpakov & Kucherov 1999: exactly 2|f(n-2)| - 3 runs for n >= 5
             assertThat(out.size()).as("runs of f%d", n).isEqualTo(2 * f[n - 2].length - 3);
         }
@@ -75,11 +75,11 @@ class RunFinderPublishedTest {
         byte[] w = thueTernary(100_000);
         assertThat(w).startsWith(2, 1, 0, 2, 0, 1, 2, 1, 0, 1, 2);
         // Thue 1912 (from memory, per the field notes): this word is square-free, so it holds no run at all
-        assertThat(runs(w, ANY_PERIOD).size()).isZero();
+        assertThat(runs(w, NO_PERIOD_LIMIT).size()).isZero();
         // a single changed letter makes a square, which the finder must see
         byte[] changed = w.clone();
         changed[5001] = changed[5000];
-        assertThat(runs(changed, ANY_PERIOD).size()).isPositive();
+        assertThat(runs(changed, NO_PERIOD_LIMIT).size()).isPositive();
     }
 
     @Test
@@ -114,7 +114,7 @@ class RunFinderPublishedTest {
             cases[c] = s;
         }
         for (byte[] s : cases) {
-            RunList out = runs(s, ANY_PERIOD);
+            RunList out = runs(s, NO_PERIOD_LIMIT);
             double exponents = 0;
             for (int i = 0; i < out.size(); i++) {
                 exponents += (double) (out.end(i) - out.start(i)) / out.period(i);
@@ -130,7 +130,7 @@ class RunFinderPublishedTest {
     void fiveMillionEqualLettersAreOneRun() {
         byte[] s = new byte[5_000_000];
         Arrays.fill(s, Bases.G);
-        RunList out = runs(s, ANY_PERIOD);
+        RunList out = runs(s, NO_PERIOD_LIMIT);
         assertThat(out.size()).isEqualTo(1);
         assertThat(new int[] {out.start(0), out.end(0), out.period(0)}).containsExactly(0, 5_000_000, 1);
     }
