@@ -168,6 +168,30 @@ public final class GenomeReader implements AutoCloseable {
                 mismatch);
     }
 
+    /**
+     * The bases of a contig as a stream read in pieces; see {@link BaseStream}. Streams of the same file
+     * may be read in turns (each keeps its own place), one call at a time.
+     */
+    public BaseStream stream(ContigInfo c) {
+        // stand-in until the loader reads incrementally: loads the contig whole on the first call
+        return new BaseStream() {
+            private byte[] all;
+            private int at;
+
+            @Override
+            public void read(byte[] dst, int off, int n) {
+                if (all == null) {
+                    all = sequence(c);
+                }
+                if (n < 0 || at + n > all.length) {
+                    throw new IllegalArgumentException("read past the end of " + c.name());
+                }
+                System.arraycopy(all, at, dst, off, n);
+                at += n;
+            }
+        };
+    }
+
     @Override
     public void close() {
         cursor.close();
