@@ -12,6 +12,7 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import stria.StriaException;
+import stria.io.ContigBytes;
 import stria.io.ContigInfo;
 import stria.io.GenomeReader;
 import stria.io.Region;
@@ -190,7 +191,7 @@ public final class ScanCommand implements Callable<Integer> {
             try (Progress p = new Progress(GenomeScan.totalBases(units), showProgress, System.err)) {
                 new GenomeScan(settings, p).run(units, new GenomeScan.Output() {
                     @Override
-                    public void beginUnit(ScanUnit unit, byte[] seq) {
+                    public void beginUnit(ScanUnit unit, ContigBytes seq) {
                         maskSpans.clear();
                     }
 
@@ -203,7 +204,7 @@ public final class ScanCommand implements Callable<Integer> {
                     }
 
                     @Override
-                    public void endUnit(ScanUnit unit, byte[] seq) {
+                    public void endUnit(ScanUnit unit, ContigBytes seq) {
                         if (maskWriter != null) {
                             int n = maskSpans.size();
                             int[] starts = new int[n];
@@ -212,7 +213,7 @@ public final class ScanCommand implements Callable<Integer> {
                                 starts[i] = maskSpans.start(i);
                                 ends[i] = maskSpans.end(i);
                             }
-                            maskWriter.writeContig(unit.contig().name(), seq, unit.contig().length(), starts, ends, n);
+                            maskWriter.writeContig(unit.contig().name(), seq, starts, ends, n);
                         }
                     }
                 });
@@ -238,7 +239,7 @@ public final class ScanCommand implements Callable<Integer> {
         List<ScanUnit> units = new ArrayList<>();
         Map<GenomeReader, ScanUnit.Source> sources = new java.util.IdentityHashMap<>();
         for (GenomeReader r : readers) {
-            sources.put(r, r::sequence);
+            sources.put(r, r::stream);
         }
         if (!settings.regions().isEmpty()) {
             List<ContigInfo> flat = new ArrayList<>();

@@ -49,6 +49,7 @@ public final class Bases {
     /**
      * Writes the codes of {@code ascii[from, from + len)} into {@code codes[0, len)}. Bytes that are not
      * nucleotide letters become {@link #INVALID}; validation happens when a genome is read, not here.
+     * The two arrays may be the same one when {@code from == 0}: each byte is read before its code is written.
      */
     public static void encode(byte[] ascii, int from, int len, byte[] codes) {
         for (int i = 0; i < len; i++) {

@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import stria.StriaException;
+import stria.io.ContigBytes;
 
 /**
  * Writes a genome as FASTA with the reported repeats masked, contig by contig in input order.
@@ -40,6 +41,9 @@ public final class MaskedFastaWriter implements Closeable {
         }
     }
 
+    /** Lines read from the contig at a time. */
+    private static final int BLOCK_LINES = 16_384;
+
     private final OutputStream out;
     private final Mode mode;
     private final int lineWidth;
@@ -67,13 +71,29 @@ public final class MaskedFastaWriter implements Closeable {
      * overlap or nest.
      */
     public void writeContig(String name, byte[] seq, int length, int[] starts, int[] ends, int count) {
+        writeContig(name, ContigBytes.of(seq, length), starts, ends, count);
+    }
+
+    /** As above for a contig read in blocks, so that a chromosome is never copied whole. */
+    public void writeContig(String name, ContigBytes seq, int[] starts, int[] ends, int count) {
+        int length = seq.length();
         checkIntervals(name, length, starts, ends, count);
         put(('>' + name + '\n').getBytes(StandardCharsets.UTF_8));
         byte[] plain = mode == Mode.SOFT ? UPPER : null;
+        byte[] whole = seq.array();
+        byte[] block = whole != null ? whole : new byte[Math.min(length, BLOCK_LINES * lineWidth)];
+        int blockStart = 0;
+        int blockEnd = whole != null ? length : 0;
         int next = 0;
         int maskedTo = 0; // end of the union of all intervals that start at or before the current base
         for (int lineStart = 0; lineStart < length; lineStart += lineWidth) {
             int lineEnd = Math.min(length, lineStart + lineWidth);
+            if (lineEnd > blockEnd) {
+                // blocks hold whole lines, so a line never spans two
+                blockStart = lineStart;
+                blockEnd = Math.min(length, lineStart + block.length);
+                seq.copy(blockStart, blockEnd, block, 0);
+            }
             if (used + (lineEnd - lineStart) + 1 > buf.length) {
                 drain();
             }
@@ -82,7 +102,7 @@ public final class MaskedFastaWriter implements Closeable {
                     maskedTo = Math.max(maskedTo, ends[next]);
                     next++;
                 }
-                int b = seq[i] & 0xff;
+                int b = block[i - blockStart] & 0xff;
                 byte o;
                 if (i < maskedTo) {
                     o = mode == Mode.HARD ? (byte) 'N' : LOWER[b];

@@ -13,6 +13,7 @@ import java.util.concurrent.Semaphore;
 import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
 import stria.StriaException;
+import stria.io.ContigBytes;
 import stria.io.ContigInfo;
 import stria.repeats.RunList;
 import stria.score.ExactLocus;
@@ -25,21 +26,24 @@ import stria.score.ScoreSettings;
  * Scans a list of units (whole contigs, regions or shard pieces) in order and hands their loci, in order, to
  * an {@link Output}.
  *
- * <p>Threads: a reader thread loads contigs and queues their windows on a fixed pool; the calling thread
- * stitches the windows of each unit in order and scores them, again on the pool. At most
- * {@code 2 threads + 4} windows are in flight, so memory depends on window length and thread count, plus
- * the contigs being worked on. Every decision that shapes the output depends only on the sequence, never
- * on which thread or window did the work, so the bytes written are the same for any thread count and
- * window length.
+ * <p>Threads: a reader thread reads each contig front to back into a {@link ContigStore} and queues its
+ * windows on a fixed pool as soon as their bases are in; the calling thread stitches the windows of each
+ * unit in order and scores them in chunks, again on the pool, writing each chunk's loci as it comes. At
+ * most {@code 2 threads + 4} windows are in flight and a contig longer than one window is kept in a
+ * temporary file, not in memory, so memory depends on window length and thread count, not on contig
+ * length (the exact runs a unit keeps as seeds, a few per kilobase, are the one part that grows with it).
+ * Every decision that shapes the output depends only on the sequence, never on which thread or window did
+ * the work, so the bytes written are the same for any thread count and window length.
  */
 public final class GenomeScan {
     /** Receives the results, unit by unit, in order. */
     public interface Output {
-        void beginUnit(ScanUnit unit, byte[] seq);
+        void beginUnit(ScanUnit unit, ContigBytes seq);
 
         void locus(ScanUnit unit, Locus locus);
 
-        void endUnit(ScanUnit unit, byte[] seq);
+        /** {@code seq} may be read whole here; it is closed after the contig's last unit. */
+        void endUnit(ScanUnit unit, ContigBytes seq);
     }
 
     /** Length of the stretches scored as separate tasks; any value gives the same output. */
@@ -50,14 +54,21 @@ public final class GenomeScan {
     private final LocusCaller caller;
     private final Progress progress;
     private final long initialMargin;
+    private final int scoreChunk;
+    private final int inMemoryMax;
 
     public GenomeScan(ScanSettings settings, Progress progress) {
-        this(settings, progress, 65_536 + 8L * settings.filters().maxPeriod());
+        this(settings, progress, 65_536 + 8L * settings.filters().maxPeriod(), SCORE_CHUNK, settings.window());
     }
 
-    /** With the context first computed around a unit that is not a whole contig (tests force it small). */
-    GenomeScan(ScanSettings settings, Progress progress, long initialMargin) {
+    /**
+     * With the context first computed around a unit that is not a whole contig, the length of scoring
+     * chunks and the longest contig held in memory (tests force all three small).
+     */
+    GenomeScan(ScanSettings settings, Progress progress, long initialMargin, int scoreChunk, int inMemoryMax) {
         this.initialMargin = initialMargin;
+        this.scoreChunk = scoreChunk;
+        this.inMemoryMax = inMemoryMax;
         this.settings = settings;
         this.filters = settings.filters();
         this.caller = new LocusCaller(filters);
@@ -75,13 +86,13 @@ public final class GenomeScan {
 
     private static final class Work {
         final ScanUnit unit;
-        final byte[] seq;
+        final ContigStore seq;
         final WindowPlan plan;
         final CompletableFuture<WindowRuns>[] windows;
         final Throwable error;
 
         @SuppressWarnings("unchecked")
-        Work(ScanUnit unit, byte[] seq, WindowPlan plan) {
+        Work(ScanUnit unit, ContigStore seq, WindowPlan plan) {
             this.unit = unit;
             this.seq = seq;
             this.plan = plan;
@@ -114,9 +125,11 @@ public final class GenomeScan {
         ExecutorService pool = Executors.newFixedThreadPool(threads, tf);
         Semaphore permits = new Semaphore(2 * threads + 4);
         BlockingQueue<Work> queue = new ArrayBlockingQueue<>(2 * threads + 4);
-        Thread reader = new Thread(() -> produce(units, pool, permits, queue), "stria-reader");
+        List<ContigStore> stores = new ArrayList<>();
+        Thread reader = new Thread(() -> produce(units, pool, permits, queue, stores), "stria-reader");
         reader.setDaemon(true);
         reader.start();
+        ContigStore current = null;
         try {
             while (true) {
                 Work w = queue.take();
@@ -126,6 +139,10 @@ public final class GenomeScan {
                 if (w.error != null) {
                     rethrow(w.error);
                 }
+                if (current != w.seq) {
+                    close(current, stores);
+                    current = w.seq;
+                }
                 consume(w, pool, permits, out);
             }
         } catch (InterruptedException e) {
@@ -134,27 +151,60 @@ public final class GenomeScan {
         } finally {
             reader.interrupt();
             pool.shutdownNow();
+            try {
+                reader.join(10_000);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+            synchronized (stores) {
+                for (ContigStore st : stores) {
+                    st.close();
+                }
+                stores.clear();
+            }
         }
     }
 
-    private void produce(List<ScanUnit> units, ExecutorService pool, Semaphore permits, BlockingQueue<Work> queue) {
+    private static void close(ContigStore store, List<ContigStore> stores) {
+        if (store != null) {
+            store.close();
+            synchronized (stores) {
+                stores.remove(store);
+            }
+        }
+    }
+
+    private void produce(List<ScanUnit> units, ExecutorService pool, Semaphore permits, BlockingQueue<Work> queue,
+                         List<ContigStore> stores) {
+        Work w = null;
         try {
             ScanUnit previous = null;
-            byte[] seq = null;
+            ContigStore seq = null;
             int maxPeriod = filters.maxPeriod();
             WindowRuns.Keep keep = this::keep;
             for (ScanUnit u : units) {
                 if (previous == null || previous.source() != u.source() || previous.contig() != u.contig()) {
-                    seq = u.source().sequence(u.contig());
+                    synchronized (stores) {
+                        if (Thread.currentThread().isInterrupted()) {
+                            return;
+                        }
+                        seq = ContigStore.open(u.contig(), u.source().stream(u.contig()), inMemoryMax);
+                        stores.add(seq);
+                    }
                 }
                 previous = u;
+                if (!u.wholeContig()) {
+                    // the context around a part may have to grow after its windows are done, so read it all
+                    seq.fill(u.contig().length());
+                }
                 int[] range = initialRange(u);
-                Work w = new Work(u, seq, new WindowPlan(range[0], range[1], settings.window(), maxPeriod));
+                w = new Work(u, seq, new WindowPlan(range[0], range[1], settings.window(), maxPeriod));
                 queue.put(w);
-                byte[] s = seq;
+                ContigStore s = seq;
                 for (int k = 0; k < w.windows.length; k++) {
                     permits.acquire();
                     int ws = w.plan.start(k), we = w.plan.end(k);
+                    s.fill(we);
                     CompletableFuture<WindowRuns> f = w.windows[k];
                     pool.execute(() -> {
                         try {
@@ -169,6 +219,13 @@ public final class GenomeScan {
         } catch (InterruptedException e) {
             // the consumer stopped; nothing more to do
         } catch (Throwable t) {
+            if (w != null) {
+                // bases that cannot be read fail the windows still waiting for them, so the consumer
+                // stops at the first window it cannot have, in order
+                for (CompletableFuture<WindowRuns> f : w.windows) {
+                    f.completeExceptionally(t);
+                }
+            }
             try {
                 queue.put(new Work(t));
             } catch (InterruptedException ignored) {
@@ -230,7 +287,7 @@ public final class GenomeScan {
             long margin = initialMargin;
             while (true) {
                 List<Locus> loci = settings.exact() ? exactFromRange(u, w.seq, plan, kept)
-                        : score(u, w.seq, plan, kept, pool);
+                        : score(u, w.seq, plan, kept, pool, out);
                 if (loci != null) {
                     for (Locus l : loci) {
                         out.locus(u, l);
@@ -264,7 +321,7 @@ public final class GenomeScan {
     }
 
     /** Exact runs of a stretch, or null when one of them may continue past the known stretch. */
-    private List<Locus> exactFromRange(ScanUnit u, byte[] seq, WindowPlan plan, RunList runs) {
+    private List<Locus> exactFromRange(ScanUnit u, ContigBytes seq, WindowPlan plan, RunList runs) {
         int len = u.contig().length();
         List<Locus> loci = new ArrayList<>();
         for (int i = 0; i < runs.size(); i++) {
@@ -279,36 +336,49 @@ public final class GenomeScan {
         return loci;
     }
 
-    /** Imperfect loci of a unit, scored in chunks on the pool; null when more context is needed. */
-    private List<Locus> score(ScanUnit u, byte[] seq, WindowPlan plan, RunList seeds, ExecutorService pool)
-            throws InterruptedException {
-        int len = u.contig().length();
+    /**
+     * Imperfect loci of a unit, scored in chunks on the pool. A whole contig never needs more context: its
+     * loci go to {@code out} chunk by chunk as they are ready and the result is an empty list. A part of a
+     * contig is answered whole, or null when more context is needed.
+     */
+    private List<Locus> score(ScanUnit u, ContigBytes seq, WindowPlan plan, RunList seeds, ExecutorService pool,
+                              Output out) throws InterruptedException {
+        boolean stream = u.wholeContig();
         List<Future<List<Locus>>> parts = new ArrayList<>();
         List<Integer> sizes = new ArrayList<>();
-        for (long a = u.from(); a < u.to(); a += SCORE_CHUNK) {
+        for (long a = u.from(); a < u.to(); a += scoreChunk) {
             int from = (int) a;
-            int to = (int) Math.min(u.to(), a + SCORE_CHUNK);
-            parts.add(pool.submit(() -> caller.call(seq, len, seeds, plan.lo(), plan.hi(), from, to)));
+            int to = (int) Math.min(u.to(), a + scoreChunk);
+            parts.add(pool.submit(() -> caller.call(seq, seeds, plan.lo(), plan.hi(), from, to)));
             sizes.add(to - from);
         }
         List<Locus> all = new ArrayList<>();
         boolean more = false;
         for (int i = 0; i < parts.size(); i++) {
+            List<Locus> loci = null;
             try {
-                all.addAll(parts.get(i).get());
+                loci = parts.get(i).get();
+                parts.set(i, null);
             } catch (ExecutionException e) {
-                if (e.getCause() instanceof NeedMoreContextException && !u.wholeContig()) {
+                if (e.getCause() instanceof NeedMoreContextException && !stream) {
                     more = true;
                     continue;
                 }
                 rethrow(e.getCause());
+            }
+            if (stream) {
+                for (Locus l : loci) {
+                    out.locus(u, l);
+                }
+            } else {
+                all.addAll(loci);
             }
             progress.add(sizes.get(i) - sizes.get(i) / 2);
         }
         return more ? null : all;
     }
 
-    private void runRange(byte[] seq, WindowPlan plan, Stitcher.Sink sink, ExecutorService pool)
+    private void runRange(ContigBytes seq, WindowPlan plan, Stitcher.Sink sink, ExecutorService pool)
             throws InterruptedException {
         List<Future<WindowRuns>> fs = new ArrayList<>();
         int maxPeriod = filters.maxPeriod();

@@ -1,5 +1,8 @@
 package stria.pipeline;
 
+import java.util.function.Function;
+
+import stria.io.BaseStream;
 import stria.io.ContigInfo;
 
 /**
@@ -11,7 +14,20 @@ public record ScanUnit(Source source, ContigInfo contig, int from, int to) {
     /** Where the bases of a contig come from (a genome file, or memory in tests). */
     @FunctionalInterface
     public interface Source {
-        byte[] sequence(ContigInfo contig);
+        /** The contig's bases front to back; called once per contig and scan. */
+        BaseStream stream(ContigInfo contig);
+
+        /** A source of contigs already in memory. */
+        static Source of(Function<ContigInfo, byte[]> sequences) {
+            return contig -> {
+                byte[] seq = sequences.apply(contig);
+                int[] at = {0};
+                return (dst, off, n) -> {
+                    System.arraycopy(seq, at[0], dst, off, n);
+                    at[0] += n;
+                };
+            };
+        }
     }
 
     public boolean wholeContig() {

@@ -1,6 +1,7 @@
 package stria.pipeline;
 
 import stria.io.Bases;
+import stria.io.ContigBytes;
 import stria.repeats.RunFinder;
 import stria.repeats.RunList;
 
@@ -31,14 +32,21 @@ final class WindowRuns {
      * kept: a run that does not touch an end is seen whole here, so dropping it loses nothing the filter
      * would have kept, and the window results stay small whatever the run density.
      */
-    static WindowRuns compute(byte[] seq, int start, int end, int maxPeriod, Keep keep) {
+    static WindowRuns compute(ContigBytes seq, int start, int end, int maxPeriod, Keep keep) {
         int len = end - start;
         byte[][] holder = CODES.get();
         if (holder[0].length < len) {
             holder[0] = new byte[len];
         }
         byte[] codes = holder[0];
-        Bases.encode(seq, start, len, codes);
+        byte[] whole = seq.array();
+        if (whole != null) {
+            Bases.encode(whole, start, len, codes);
+        } else {
+            // the letters are copied into the code buffer and encoded where they lie
+            seq.copy(start, end, codes, 0);
+            Bases.encode(codes, 0, len, codes);
+        }
         RunList local = FOUND.get();
         local.clear();
         FINDER.get().find(codes, 0, len, maxPeriod, local);

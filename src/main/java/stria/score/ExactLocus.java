@@ -1,32 +1,54 @@
 package stria.score;
 
+import stria.io.Bases;
+import stria.io.ContigBytes;
+
 /**
  * Builds the {@link Locus} of an exact run: purity 1, no edits, motif read at the run's first copy, and the
- * score every column of a perfect alignment earns.
+ * score every column of a perfect alignment earns. Everything comes from the first copy alone, since an
+ * exact run repeats it: a satellite array of megabases is never read whole.
  */
 public final class ExactLocus {
     private ExactLocus() {
     }
 
     public static Locus of(byte[] seq, int start, int end, int period) {
+        return of(seq, start, start, end, period);
+    }
+
+    public static Locus of(ContigBytes seq, int start, int end, int period) {
+        byte[] first = new byte[period];
+        seq.copy(start, start + period, first, 0);
+        return of(first, 0, start, end, period);
+    }
+
+    /** An exact run {@code [start, end)} whose first copy is {@code copy[at, at + period)}. */
+    public static Locus of(byte[] copy, int at, int start, int end, int period) {
         char[] m = new char[period];
         for (int i = 0; i < period; i++) {
-            m[i] = Character.toUpperCase((char) seq[start + i]);
+            m[i] = Character.toUpperCase((char) copy[at + i]);
         }
         String motif = new String(m);
         return new Locus(start, end, period, motif, MotifClass.of(motif), (end - start) / (double) period, 1.0,
-                0, 0, 0, WrapAligner.MATCH * (end - start), entropy(seq, start, end));
+                0, 0, 0, WrapAligner.MATCH * (end - start), entropy(copy, at, end - start, period));
     }
 
-    /** Shannon entropy in bits of the A, C, G, T composition of {@code seq[start, end)}. */
-    public static double entropy(byte[] seq, int start, int end) {
+    /**
+     * Shannon entropy in bits of the A, C, G, T composition of {@code len} bases that repeat
+     * {@code copy[at, at + period)}: whole copies count the unit's composition, the partial copy at the end
+     * its prefix.
+     */
+    static double entropy(byte[] copy, int at, int len, int period) {
+        int whole = len / period;
+        int rest = len % period;
         int[] n = new int[4];
         int total = 0;
-        for (int i = start; i < end; i++) {
-            int c = stria.io.Bases.code(seq[i]);
+        for (int i = 0; i < period; i++) {
+            int c = Bases.code(copy[at + i]);
             if (c >= 0 && c < 4) {
-                n[c]++;
-                total++;
+                int k = whole + (i < rest ? 1 : 0);
+                n[c] += k;
+                total += k;
             }
         }
         double h = 0;

@@ -22,4 +22,10 @@ public record Locus(int start, int end, int period, String motif, String motifCl
     public int length() {
         return end - start;
     }
+
+    /** The same locus {@code d} bases further along. */
+    public Locus shifted(int d) {
+        return new Locus(start + d, end + d, period, motif, motifClass, copies, purity, mismatches, insertions,
+                deletions, score, entropy);
+    }
 }

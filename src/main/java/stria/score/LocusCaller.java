@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import stria.io.Bases;
+import stria.io.ContigBytes;
 import stria.repeats.RunList;
 
 /**
@@ -111,20 +112,30 @@ public final class LocusCaller {
 
     /** Safe to call from several threads at once: each call works in buffers of its own. */
     public List<Locus> call(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
+        return call(ContigBytes.of(seq, length), seeds, lo, hi, from, to);
+    }
+
+    /**
+     * As {@link #call(byte[], int, RunList, int, int, int, int)}, for a contig that is not held in an array:
+     * only the stretch being solved, plus {@link #readPad} on each side, is copied out.
+     */
+    public List<Locus> call(ContigBytes seq, RunList seeds, int lo, int hi, int from, int to) {
         if (from >= to) {
             return List.of();
         }
-        return new LocusCaller(settings).callAlone(seq, length, seeds, lo, hi, from, to);
+        return new LocusCaller(settings).callAlone(seq, seeds, lo, hi, from, to);
     }
 
-    private List<Locus> callAlone(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
+    private List<Locus> callAlone(ContigBytes seq, RunList seeds, int lo, int hi, int from, int to) {
         // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
         // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
         long pad = 4L * minimumContext();
+        byte[] whole = seq.array();
         while (true) {
             int a = (int) Math.max(lo, from - pad);
             int b = (int) Math.min(hi, to + pad);
-            List<Locus> r = solve(seq, length, seeds, a, b, from, to);
+            List<Locus> r = whole != null ? solve(whole, seq.length(), seeds, a, b, from, to)
+                    : solveSlice(seq, seeds, a, b, from, to);
             if (r != null) {
                 return r;
             }
@@ -134,6 +145,43 @@ public final class LocusCaller {
             }
             pad *= 4;
         }
+    }
+
+    /**
+     * Bases beyond {@code [lo, hi)} that solving may read: the recurrence check looks half its window past
+     * a word on either side, and a seed's reach may start before {@code lo}. A copy of the contig that
+     * starts this far before {@code lo} also keeps every position-dependent bound inside
+     * {@link RecurrenceSeeds#find} and the reach computation where it would be for the whole contig, which
+     * is why solving a copy gives the same loci, shifted.
+     */
+    int readPad() {
+        return RecurrenceSeeds.WINDOW + RecurrenceSeeds.K + 64 + 2 * settings.maxPeriod() + 32;
+    }
+
+    /** {@link #solve} on a copy of {@code [lo - readPad, hi + readPad)}, in contig coordinates. */
+    private List<Locus> solveSlice(ContigBytes seq, RunList seeds, int lo, int hi, int from, int to) {
+        int length = seq.length();
+        int base = Math.max(0, lo - readPad());
+        int end = (int) Math.min(length, (long) hi + readPad());
+        byte[] slice = new byte[end - base];
+        seq.copy(base, end, slice, 0);
+        RunList local = new RunList(64);
+        for (int i = 0; i < seeds.size(); i++) {
+            int s = seeds.start(i);
+            int e = seeds.end(i);
+            if (e > lo && s < hi) {
+                local.add(s - base, e - base, seeds.period(i));
+            }
+        }
+        List<Locus> r = solve(slice, length - base, local, lo - base, hi - base, from - base, to - base);
+        if (r == null || base == 0) {
+            return r;
+        }
+        List<Locus> out = new ArrayList<>(r.size());
+        for (Locus l : r) {
+            out.add(l.shifted(base));
+        }
+        return out;
     }
 
     /** The loci of [from, to) computed from what is known in [lo, hi), or null if that cannot be decided. */

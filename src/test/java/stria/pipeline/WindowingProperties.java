@@ -9,6 +9,7 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import stria.io.Bases;
+import stria.io.ContigBytes;
 import stria.io.ContigInfo;
 import stria.repeats.RunFinder;
 import stria.repeats.RunList;
@@ -66,26 +67,38 @@ class WindowingProperties {
     }
 
     static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges, long margin) {
+        return scan(seq, s, ranges, margin, GenomeScan.SCORE_CHUNK, s.window(), false);
+    }
+
+    /**
+     * @param inMemoryMax longest contig held in memory; longer ones go through a temporary file
+     * @param full        whole loci (every field) instead of start-end/period
+     */
+    static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges, long margin, int scoreChunk,
+                             int inMemoryMax, boolean full) {
         ContigInfo c = new ContigInfo(0, "c", seq.length);
         List<ScanUnit> units = new ArrayList<>();
-        ScanUnit.Source src = x -> seq;
+        ScanUnit.Source src = ScanUnit.Source.of(x -> seq);
         for (int[] r : ranges) {
             units.add(new ScanUnit(src, c, r[0], r[1]));
         }
         List<String> out = new ArrayList<>();
         try (Progress p = new Progress(1, false, System.err)) {
-            new GenomeScan(s, p, margin).run(units, new GenomeScan.Output() {
+            new GenomeScan(s, p, margin, scoreChunk, inMemoryMax).run(units, new GenomeScan.Output() {
                 @Override
-                public void beginUnit(ScanUnit unit, byte[] q) {
+                public void beginUnit(ScanUnit unit, ContigBytes q) {
                 }
 
                 @Override
                 public void locus(ScanUnit unit, Locus l) {
-                    out.add(l.start() + "-" + l.end() + "/" + l.period());
+                    out.add(full ? l.toString() : l.start() + "-" + l.end() + "/" + l.period());
                 }
 
                 @Override
-                public void endUnit(ScanUnit unit, byte[] q) {
+                public void endUnit(ScanUnit unit, ContigBytes q) {
+                    byte[] all = new byte[q.length()];
+                    q.copy(0, q.length(), all, 0);
+                    assertThat(all).isEqualTo(seq);
                 }
             });
         }
@@ -152,5 +165,50 @@ class WindowingProperties {
         }
         ranges.add(new int[] {at, seq.length});
         assertThat(scan(seq, s, ranges, margin)).isEqualTo(whole);
+    }
+
+    static ScanSettings imperfect(int maxPeriod, int window, int threads) {
+        return new ScanSettings(false, new ScoreSettings(1, maxPeriod, 2, 12, 0.7, 36), threads, window, List.of(), 0,
+                0, 1_000_000);
+    }
+
+    /**
+     * Imperfect loci do not depend on where the contig lives (array or temporary file), on the scoring chunk
+     * length (chunks of a few hundred bases force the scorer to read a copy of its stretch and widen it
+     * across chunk ends many times), on windows or on threads.
+     */
+    @Property(tries = 25)
+    void imperfectLociDoNotDependOnStorageChunksWindowsOrThreads(
+            @ForAll long seed, @ForAll @IntRange(min = 2, max = 60) int maxPeriod,
+            @ForAll @IntRange(min = 64, max = 3000) int chunk, @ForAll @IntRange(min = 1, max = 3) int threads) {
+        byte[] seq = genome(seed, 30_000, maxPeriod);
+        List<int[]> whole = List.of(new int[] {0, seq.length});
+        List<String> reference = scan(seq, imperfect(maxPeriod, 1 << 20, 1), whole, 1 << 20, 1 << 30, 1 << 30,
+                true);
+        int window = ScanSettings.minWindow(maxPeriod) + (int) Math.floorMod(seed, 2000L);
+        List<String> got = scan(seq, imperfect(maxPeriod, window, threads), whole, 1 << 20, chunk, 0, true);
+        assertThat(got).isNotEmpty().isEqualTo(reference);
+    }
+
+    /** Parts of a contig kept in a temporary file give the slice of the whole scan, imperfect loci included. */
+    @Property(tries = 15)
+    void imperfectPartsFromATemporaryFileGiveTheSliceOfTheWholeScan(
+            @ForAll long seed, @ForAll @IntRange(min = 2, max = 40) int maxPeriod,
+            @ForAll @IntRange(min = 1, max = 5) int pieces, @ForAll @IntRange(min = 1, max = 2000) int margin) {
+        byte[] seq = genome(seed, 20_000, maxPeriod);
+        ScanSettings s = imperfect(maxPeriod, ScanSettings.minWindow(maxPeriod) + 300, 2);
+        List<String> whole = scan(seq, s, List.of(new int[] {0, seq.length}), 1 << 20, 1 << 30, 1 << 30, true);
+        Random rnd = new Random(seed);
+        List<int[]> ranges = new ArrayList<>();
+        int at = 0;
+        for (int k = 1; k < pieces; k++) {
+            int cut = at + rnd.nextInt(Math.max(1, seq.length - at));
+            if (cut > at) {
+                ranges.add(new int[] {at, cut});
+                at = cut;
+            }
+        }
+        ranges.add(new int[] {at, seq.length});
+        assertThat(scan(seq, s, ranges, margin, 500 + margin, 0, true)).isEqualTo(whole);
     }
 }
