@@ -1,6 +1,6 @@
 package stria.io;
 
-/** Byte classes and wording shared by the pre-pass, the index check and the sequence loader. */
+/** Byte classes and wording shared by the pre-pass, the index check and the record stream. */
 final class FastaSyntax {
     /** True for the bytes a sequence line may hold: the IUPAC nucleotide letters, either case. */
     static final boolean[] LETTER = new boolean[256];

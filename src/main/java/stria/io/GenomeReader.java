@@ -21,7 +21,7 @@ import stria.StriaException;
 
 /**
  * A genome file (FASTA: plain, gzip or BGZF, or standard input) as a list of contigs whose sequences
- * can be loaded one at a time, each into an array of exactly its length.
+ * can be loaded one at a time, each into an array of exactly its length, or read in pieces.
  *
  * <p>Decompression and the index formats come from htsjdk. The records themselves are parsed here,
  * byte by byte, because the FASTA readers of the library grow their buffers while reading (a large
@@ -29,8 +29,8 @@ import stria.StriaException;
  *
  * <p>Everything is checked when the file is opened (a pre-pass, or the .fai when one matches the file)
  * and every byte again when a sequence is loaded; all problems surface as {@link StriaException} with
- * the file named. Loading is serialised ({@link #sequence} is synchronized): one file is read by one
- * cursor, and a pipeline asks for one contig at a time anyway.
+ * the file named. Loading is serialised ({@link #sequence} and every read of a {@link #stream} hold this
+ * reader's lock): one file is read by one cursor, and a pipeline asks for one contig at a time anyway.
  */
 public final class GenomeReader implements AutoCloseable {
     private final String display;
@@ -160,36 +160,26 @@ public final class GenomeReader implements AutoCloseable {
      * @throws StriaException when a byte is not an IUPAC nucleotide letter, naming record, line and letter
      */
     public synchronized byte[] sequence(ContigInfo c) {
+        BaseStream bases = stream(c);
+        byte[] out = new byte[c.length()];
+        bases.read(out, 0, out.length);
+        return out;
+    }
+
+    /**
+     * The bases of a contig as a stream read in pieces; see {@link BaseStream}. It holds only its place in
+     * the file, so a chromosome read this way costs the caller's buffers and nothing more. Streams of the
+     * same file, and {@link #sequence}, may be used in turns (each stream keeps its own place); calls are
+     * serialised on this reader. Going back in a gzip file, or in a BGZF file without .gzi, decompresses
+     * again from the start, so there streams are cheapest read one after the other.
+     */
+    public BaseStream stream(ContigInfo c) {
         if (c.index() >= contigs.size() || !contigs.get(c.index()).equals(c)) {
             throw new IllegalArgumentException("contig " + c + " is not from " + display);
         }
         int i = record[c.index()];
-        return SequenceLoader.load(cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
+        return new RecordStream(this, cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
                 mismatch);
-    }
-
-    /**
-     * The bases of a contig as a stream read in pieces; see {@link BaseStream}. Streams of the same file
-     * may be read in turns (each keeps its own place), one call at a time.
-     */
-    public BaseStream stream(ContigInfo c) {
-        // stand-in until the loader reads incrementally: loads the contig whole on the first call
-        return new BaseStream() {
-            private byte[] all;
-            private int at;
-
-            @Override
-            public void read(byte[] dst, int off, int n) {
-                if (all == null) {
-                    all = sequence(c);
-                }
-                if (n < 0 || at + n > all.length) {
-                    throw new IllegalArgumentException("read past the end of " + c.name());
-                }
-                System.arraycopy(all, at, dst, off, n);
-                at += n;
-            }
-        };
     }
 
     @Override

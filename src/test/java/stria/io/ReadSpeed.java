@@ -3,10 +3,12 @@ package stria.io;
 import java.util.List;
 
 /**
- * Manual benchmark, not a test: times opening (pre-pass or index check) and loading every contig in
- * file order. Usage: ReadSpeed FILE...
+ * Manual benchmark, not a test: times opening (pre-pass or index check), loading every contig in file
+ * order, and reading every contig again through a stream in 1 MiB pieces. Usage: ReadSpeed FILE...
  */
 public final class ReadSpeed {
+    private static final int PIECE = 1 << 20;
+
     private ReadSpeed() {
     }
 
@@ -29,12 +31,25 @@ public final class ReadSpeed {
                     }
                     long t2 = System.nanoTime();
                     long c2 = mx.getCurrentThreadCpuTime();
+                    byte[] piece = new byte[PIECE];
+                    for (ContigInfo c : contigs) {
+                        BaseStream in = r.stream(c);
+                        for (int done = 0; done < c.length(); done += PIECE) {
+                            int n = Math.min(PIECE, c.length() - done);
+                            in.read(piece, 0, n);
+                            check += piece[n / 2];
+                        }
+                    }
+                    long t3 = System.nanoTime();
+                    long c3 = mx.getCurrentThreadCpuTime();
                     // wall time suffers when the machine is shared; CPU time of this thread is the honest figure
                     System.out.printf("%s round %d: %d contigs, %d bases; open %.2f s wall, %.2f s cpu (%.0f MB/s);"
-                                    + " load %.2f s wall, %.2f s cpu (%.0f MB/s) [%d]%n",
+                                    + " load %.2f s wall, %.2f s cpu (%.0f MB/s);"
+                                    + " stream %.2f s wall, %.2f s cpu (%.0f MB/s) [%d]%n",
                             file, round, contigs.size(), bases, (t1 - t0) / 1e9, (c1 - c0) / 1e9,
                             bases / 1e6 / ((c1 - c0) / 1e9), (t2 - t1) / 1e9, (c2 - c1) / 1e9,
-                            bases / 1e6 / ((c2 - c1) / 1e9), check);
+                            bases / 1e6 / ((c2 - c1) / 1e9), (t3 - t2) / 1e9, (c3 - c2) / 1e9,
+                            bases / 1e6 / ((c3 - c2) / 1e9), check);
                 }
             }
         }
