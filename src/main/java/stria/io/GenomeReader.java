@@ -241,11 +241,7 @@ public final class GenomeReader implements AutoCloseable {
     private static Path spool(Path source, String display) {
         Path tmp = null;
         try {
-            // clusters point TMPDIR at node-local scratch; the JVM default ignores it
-            String env = System.getenv("TMPDIR");
-            Path where = env != null && !env.isEmpty() && Files.isDirectory(Path.of(env)) ? Path.of(env)
-                    : Path.of(System.getProperty("java.io.tmpdir"));
-            tmp = Files.createTempFile(where, "stria-input-", ".fa");
+            tmp = Files.createTempFile(TempDir.directory(), "stria-input-", ".fa");
             tmp.toFile().deleteOnExit();
             if (source == null) {
                 Files.copy(System.in, tmp, StandardCopyOption.REPLACE_EXISTING);
