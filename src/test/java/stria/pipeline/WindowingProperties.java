@@ -153,18 +153,37 @@ class WindowingProperties {
         byte[] seq = genome(seed, 5000, maxPeriod);
         ScanSettings s = exact(maxPeriod, ScanSettings.minWindow(maxPeriod) + 7, 2);
         List<String> whole = scan(seq, s, List.of(new int[] {0, seq.length}));
+        List<int[]> ranges = cuts(seed, seq.length, pieces);
+        assertThat(scan(seq, s, ranges, margin)).isEqualTo(whole);
+    }
+
+    /** An array of 40 copies with about one base in 25 substituted, so that every genome has imperfect loci. */
+    static void plantImperfect(byte[] seq, long seed, int maxPeriod) {
+        Random rnd = new Random(~seed);
+        int p = 1 + rnd.nextInt(maxPeriod);
+        int at = rnd.nextInt(seq.length - 40 * p);
+        for (int i = 0; i < p; i++) {
+            seq[at + i] = (byte) "ACGT".charAt(rnd.nextInt(4));
+        }
+        for (int i = at + p; i < at + 40 * p; i++) {
+            seq[i] = rnd.nextInt(25) == 0 ? (byte) "ACGT".charAt(rnd.nextInt(4)) : seq[i - p];
+        }
+    }
+
+    /** Up to {@code pieces} consecutive stretches covering {@code [0, length)}, cut at random. */
+    static List<int[]> cuts(long seed, int length, int pieces) {
         Random rnd = new Random(seed);
         List<int[]> ranges = new ArrayList<>();
         int at = 0;
         for (int k = 1; k < pieces; k++) {
-            int cut = at + rnd.nextInt(Math.max(1, seq.length - at));
+            int cut = at + rnd.nextInt(Math.max(1, length - at));
             if (cut > at) {
                 ranges.add(new int[] {at, cut});
                 at = cut;
             }
         }
-        ranges.add(new int[] {at, seq.length});
-        assertThat(scan(seq, s, ranges, margin)).isEqualTo(whole);
+        ranges.add(new int[] {at, length});
+        return ranges;
     }
 
     static ScanSettings imperfect(int maxPeriod, int window, int threads) {
@@ -182,6 +201,7 @@ class WindowingProperties {
             @ForAll long seed, @ForAll @IntRange(min = 2, max = 60) int maxPeriod,
             @ForAll @IntRange(min = 64, max = 3000) int chunk, @ForAll @IntRange(min = 1, max = 3) int threads) {
         byte[] seq = genome(seed, 30_000, maxPeriod);
+        plantImperfect(seq, seed, maxPeriod);
         List<int[]> whole = List.of(new int[] {0, seq.length});
         List<String> reference = scan(seq, imperfect(maxPeriod, 1 << 20, 1), whole, 1 << 20, 1 << 30, 1 << 30,
                 true);
@@ -198,17 +218,7 @@ class WindowingProperties {
         byte[] seq = genome(seed, 20_000, maxPeriod);
         ScanSettings s = imperfect(maxPeriod, ScanSettings.minWindow(maxPeriod) + 300, 2);
         List<String> whole = scan(seq, s, List.of(new int[] {0, seq.length}), 1 << 20, 1 << 30, 1 << 30, true);
-        Random rnd = new Random(seed);
-        List<int[]> ranges = new ArrayList<>();
-        int at = 0;
-        for (int k = 1; k < pieces; k++) {
-            int cut = at + rnd.nextInt(Math.max(1, seq.length - at));
-            if (cut > at) {
-                ranges.add(new int[] {at, cut});
-                at = cut;
-            }
-        }
-        ranges.add(new int[] {at, seq.length});
+        List<int[]> ranges = cuts(seed, seq.length, pieces);
         assertThat(scan(seq, s, ranges, margin, 500 + margin, 0, true)).isEqualTo(whole);
     }
 }

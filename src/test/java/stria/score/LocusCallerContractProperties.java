@@ -8,6 +8,7 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import net.jqwik.api.statistics.Statistics;
+import stria.io.ContigBytes;
 import stria.repeats.RunList;
 import stria.sim.GenomeSimulator;
 import stria.sim.NaiveRuns;
@@ -110,5 +111,57 @@ class LocusCallerContractProperties {
         List<Locus> whole = caller.call(seq, len, seeds(caller, seq, 0, len), 0, len, 0, len);
         assertThat(caller.call(seq, len, seeds(caller, seq, lo, hi), lo, hi, from, to))
                 .isEqualTo(restrict(whole, from, to));
+    }
+
+    /** A contig that is only copied from, never lent as an array, as when it sits in a temporary file. */
+    private static ContigBytes copiesOnly(byte[] seq, int[] copied) {
+        return new ContigBytes() {
+            @Override
+            public int length() {
+                return seq.length;
+            }
+
+            @Override
+            public void copy(int from, int to, byte[] dst, int off) {
+                copied[0] += to - from;
+                System.arraycopy(seq, from, dst, off, to - from);
+            }
+        };
+    }
+
+    /**
+     * Solving copies of stretches gives what solving on the whole array gives, the request for more
+     * context included.
+     */
+    @Property(tries = 80)
+    void copiesOfStretchesGiveWhatTheArrayGives(@ForAll long seed, @ForAll @IntRange(min = 0, max = 1000) int f,
+                                                @ForAll @IntRange(min = 1, max = 3000) int width,
+                                                @ForAll @IntRange(min = 0, max = 1000) int left,
+                                                @ForAll @IntRange(min = 0, max = 1000) int right) {
+        byte[] seq = genome(seed, 40000);
+        int len = seq.length;
+        LocusCaller caller = new LocusCaller(SETTINGS);
+        int from = (int) ((long) f * (len - 1) / 1000);
+        int to = Math.min(len, from + width);
+        // per mille of the contig on each side: small stretches that ask for more and large ones that answer
+        int lo = Math.max(0, from - left * len / 1000);
+        int hi = Math.min(len, to + right * len / 1000);
+        RunList known = seeds(caller, seq, lo, hi);
+        String fromArray;
+        try {
+            fromArray = caller.call(seq, len, known, lo, hi, from, to).toString();
+        } catch (NeedMoreContextException e) {
+            fromArray = "more context";
+        }
+        int[] copied = {0};
+        String fromCopies;
+        try {
+            fromCopies = caller.call(copiesOnly(seq, copied), known, lo, hi, from, to).toString();
+        } catch (NeedMoreContextException e) {
+            fromCopies = "more context";
+        }
+        Statistics.label("outcome").collect(fromArray.equals("more context") ? "more context" : "answered");
+        assertThat(fromCopies).isEqualTo(fromArray);
+        assertThat(copied[0]).isPositive();
     }
 }
