@@ -13,8 +13,9 @@ import org.junit.jupiter.api.io.TempDir;
 import stria.testutil.Cli;
 
 /**
- * A full disk while writing: the real command on a tiny tmpfs (root only; CI runs as root) must say so in
- * one line, exit 1, and leave neither output nor temporary files behind.
+ * A full disk while writing, outputs or the temporary copy of a long contig: the real command on a tiny
+ * tmpfs (root only; CI runs as root) must say so in one line, exit 1, and leave neither output nor
+ * temporary files behind.
  */
 class DiskFullTest {
     @TempDir
@@ -45,6 +46,18 @@ class DiskFullTest {
                 try (Stream<Path> left = Files.list(mnt)) {
                     assertThat(left.toList()).as("files left on the full disk").isEmpty();
                 }
+            }
+            // the temporary copy of a contig longer than one window, with TMPDIR on the full disk
+            Cli.Result r = Cli.exec(dir, null, List.of("env", "TMPDIR=" + mnt,
+                    Cli.projectDir().resolve("scripts/stria").toString(), "scan", "--window", "64k", "--bed",
+                    dir.resolve("spooled.bed").toString(), ScanCommandTest.DEMO.toString()));
+            assertThat(r.exit()).as(r.err()).isEqualTo(1);
+            assertThat(r.err().strip().lines().count()).as(r.err()).isEqualTo(1);
+            assertThat(r.err()).containsIgnoringCase("no space left on device").contains(mnt.toString())
+                    .contains("TMPDIR");
+            assertThat(dir.resolve("spooled.bed")).doesNotExist();
+            try (Stream<Path> left = Files.list(mnt)) {
+                assertThat(left.toList()).as("files left in TMPDIR").isEmpty();
             }
         } finally {
             Cli.exec(dir, null, List.of("umount", mnt.toString()));
