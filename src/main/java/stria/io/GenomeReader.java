@@ -182,6 +182,21 @@ public final class GenomeReader implements AutoCloseable {
                 mismatch);
     }
 
+    /**
+     * The bases {@code [from, length)} of a contig as a stream; see {@link #stream(ContigInfo)}.
+     */
+    public BaseStream stream(ContigInfo c, int from) {
+        // stand-in until records can be entered in the middle: reads and drops the bases before from
+        BaseStream in = stream(c);
+        byte[] drop = new byte[1 << 16];
+        for (int left = from; left > 0; ) {
+            int n = Math.min(left, drop.length);
+            in.read(drop, 0, n);
+            left -= n;
+        }
+        return in;
+    }
+
     @Override
     public void close() {
         cursor.close();
