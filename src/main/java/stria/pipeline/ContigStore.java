@@ -12,26 +12,39 @@ import stria.io.ContigInfo;
 import stria.io.TempDir;
 
 /**
- * The bases of a contig being scanned: filled front to back by the reader thread ({@link #fill}) and read
- * anywhere already filled, by any thread. A contig up to {@code inMemoryMax} bases is held in an array;
- * a longer one goes to a temporary file, so memory does not grow with chromosome length (the page cache
- * holds the file, not the heap). The file is unlinked as soon as it is open: nothing is left behind
- * whatever way the process ends.
+ * The bases of a stretch {@code [origin, end)} of a contig being scanned (the whole contig, or the context
+ * around a region or shard piece), in contig coordinates: filled front to back from a stream
+ * ({@link #fill}, one thread) and read anywhere already filled, by any thread. A stretch up to
+ * {@code inMemoryMax} bases is held in an array; a longer one goes to a temporary file, so memory does not
+ * grow with chromosome length (the page cache holds the file, not the heap). The file is unlinked as soon
+ * as it is open: nothing is left behind whatever way the process ends.
  */
 abstract class ContigStore implements ContigBytes, AutoCloseable {
     private static final int PIECE = 1 << 20;
 
     final ContigInfo contig;
+    final int origin;
+    final int end;
     private final BaseStream in;
-    private volatile int filled;
+    private volatile int filledTo;
 
-    private ContigStore(ContigInfo contig, BaseStream in) {
+    private ContigStore(ContigInfo contig, int origin, int end, BaseStream in) {
         this.contig = contig;
+        this.origin = origin;
+        this.end = end;
         this.in = in;
+        this.filledTo = origin;
     }
 
-    static ContigStore open(ContigInfo contig, BaseStream in, int inMemoryMax) {
-        return contig.length() <= inMemoryMax ? new InMemory(contig, in) : new Spooled(contig, in);
+    /**
+     * @param in the contig's bases from {@code origin} on
+     */
+    static ContigStore open(ContigInfo contig, int origin, int end, BaseStream in, int inMemoryMax) {
+        if (origin < 0 || origin > end || end > contig.length()) {
+            throw new IllegalArgumentException("[" + origin + ", " + end + ") outside " + contig);
+        }
+        return end - origin <= inMemoryMax ? new InMemory(contig, origin, end, in)
+                : new Spooled(contig, origin, end, in);
     }
 
     @Override
@@ -39,32 +52,34 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
         return contig.length();
     }
 
-    /** Bases read so far: {@code [0, filled())} may be copied. */
+    /** {@code [origin, filled())} may be copied. */
     final int filled() {
-        return filled;
+        return filledTo;
     }
 
-    /** Reads bases from the input until {@code [0, upTo)} is filled. Reader thread only. */
+    /** Reads bases from the stream until {@code [origin, upTo)} is filled (at most to {@code end}). */
     final void fill(int upTo) {
-        int at = filled;
-        while (at < upTo) {
-            at += put(in, at, Math.min(upTo, contig.length()) - at);
-            filled = at;
+        int at = filledTo;
+        int stop = Math.min(upTo, end);
+        while (at < stop) {
+            at += put(in, at - origin, stop - at);
+            filledTo = at;
         }
     }
 
     @Override
     public final void copy(int from, int to, byte[] dst, int off) {
-        if (from < 0 || from > to || to > filled) {
-            throw new IllegalStateException(contig.name() + ": [" + from + ", " + to + ") read before it was filled ("
-                    + filled + " bases)");
+        if (from < origin || from > to || to > filledTo) {
+            throw new IllegalStateException(contig.name() + ": [" + from + ", " + to + ") read outside the stretch ["
+                    + origin + ", " + filledTo + ") filled so far");
         }
-        get(from, to, dst, off);
+        get(from - origin, to - origin, dst, off);
     }
 
-    /** Takes up to {@code max} bases from {@code in} into {@code [at, at + n)}; returns n, at least 1. */
+    /** Takes up to {@code max} bases from {@code in} to stretch offset {@code at}; returns how many, at least 1. */
     abstract int put(BaseStream in, int at, int max);
 
+    /** Copies stretch offsets {@code [from, to)}. */
     abstract void get(int from, int to, byte[] dst, int off);
 
     @Override
@@ -73,9 +88,9 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
     private static final class InMemory extends ContigStore {
         private final byte[] seq;
 
-        InMemory(ContigInfo contig, BaseStream in) {
-            super(contig, in);
-            this.seq = new byte[contig.length()];
+        InMemory(ContigInfo contig, int origin, int end, BaseStream in) {
+            super(contig, origin, end, in);
+            this.seq = new byte[end - origin];
         }
 
         @Override
@@ -91,7 +106,7 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
 
         @Override
         public byte[] array() {
-            return filled() == seq.length ? seq : null;
+            return origin == 0 && filled() == contig.length() ? seq : null;
         }
 
         @Override
@@ -104,8 +119,8 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
         private final FileChannel channel;
         private final byte[] piece = new byte[PIECE];
 
-        Spooled(ContigInfo contig, BaseStream in) {
-            super(contig, in);
+        Spooled(ContigInfo contig, int origin, int end, BaseStream in) {
+            super(contig, origin, end, in);
             this.dir = TempDir.directory();
             try {
                 channel = TempDir.scratch(dir, "stria-contig-");

@@ -26,8 +26,9 @@ import stria.score.ScoreSettings;
  * Scans a list of units (whole contigs, regions or shard pieces) in order and hands their loci, in order, to
  * an {@link Output}.
  *
- * <p>Threads: a reader thread reads each contig front to back into a {@link ContigStore} and queues its
- * windows on a fixed pool as soon as their bases are in; the calling thread stitches the windows of each
+ * <p>Threads: a reader thread reads each unit's stretch (a whole contig, or the context around a region
+ * or shard piece, entered mid-record) front to back into a {@link ContigStore} and queues its windows on a
+ * fixed pool as soon as their bases are in; the calling thread stitches the windows of each
  * unit in order and scores them in chunks, again on the pool, writing each chunk's loci as it comes. At
  * most {@code 2 threads + 4} windows are in flight and a contig longer than one window is kept in a
  * temporary file, not in memory, so memory depends on window length and thread count, not on contig
@@ -38,11 +39,14 @@ import stria.score.ScoreSettings;
 public final class GenomeScan {
     /** Receives the results, unit by unit, in order. */
     public interface Output {
+        /**
+         * {@code seq} holds the bases of the unit and some context around it: the whole contig when the unit
+         * is one. It is readable until {@link #endUnit} returns.
+         */
         void beginUnit(ScanUnit unit, ContigBytes seq);
 
         void locus(ScanUnit unit, Locus locus);
 
-        /** {@code seq} may be read whole here; it is closed after the contig's last unit. */
         void endUnit(ScanUnit unit, ContigBytes seq);
     }
 
@@ -125,11 +129,10 @@ public final class GenomeScan {
         ExecutorService pool = Executors.newFixedThreadPool(threads, tf);
         Semaphore permits = new Semaphore(2 * threads + 4);
         BlockingQueue<Work> queue = new ArrayBlockingQueue<>(2 * threads + 4);
-        List<ContigStore> stores = new ArrayList<>();
+        Stores stores = new Stores();
         Thread reader = new Thread(() -> produce(units, pool, permits, queue, stores), "stria-reader");
         reader.setDaemon(true);
         reader.start();
-        ContigStore current = null;
         try {
             while (true) {
                 Work w = queue.take();
@@ -139,11 +142,8 @@ public final class GenomeScan {
                 if (w.error != null) {
                     rethrow(w.error);
                 }
-                if (current != w.seq) {
-                    close(current, stores);
-                    current = w.seq;
-                }
-                consume(w, pool, permits, out);
+                consume(w, pool, permits, out, stores);
+                stores.close(w.seq);
             }
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
@@ -156,48 +156,65 @@ public final class GenomeScan {
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
             }
-            synchronized (stores) {
-                for (ContigStore st : stores) {
-                    st.close();
-                }
-                stores.clear();
-            }
+            stores.closeAll();
         }
     }
 
-    private static void close(ContigStore store, List<ContigStore> stores) {
-        if (store != null) {
-            store.close();
-            synchronized (stores) {
-                stores.remove(store);
+    /**
+     * The stores open at any time (one per unit in flight), closed by the consumer after each unit and all
+     * together when the scan ends, however it ends.
+     */
+    private final class Stores {
+        private final List<ContigStore> open = new ArrayList<>();
+        private boolean closed;
+
+        /**
+         * A store of the stretch a unit's runs and scoring may read: the whole contig, or the context
+         * {@code [lo, hi)} plus the scorer's read pad on each side.
+         */
+        ContigStore open(ScanUnit u, int lo, int hi) {
+            int pad = u.wholeContig() ? 0 : caller.readPad();
+            int origin = Math.max(0, lo - pad);
+            int end = (int) Math.min(u.contig().length(), (long) hi + pad);
+            ContigStore st = ContigStore.open(u.contig(), origin, end, u.source().stream(u.contig(), origin),
+                    inMemoryMax);
+            synchronized (this) {
+                if (!closed) {
+                    open.add(st);
+                    return st;
+                }
             }
+            st.close();
+            throw new StriaException("interrupted");
+        }
+
+        synchronized void close(ContigStore st) {
+            st.close();
+            open.remove(st);
+        }
+
+        synchronized void closeAll() {
+            closed = true;
+            for (ContigStore st : open) {
+                st.close();
+            }
+            open.clear();
         }
     }
 
     private void produce(List<ScanUnit> units, ExecutorService pool, Semaphore permits, BlockingQueue<Work> queue,
-                         List<ContigStore> stores) {
+                         Stores stores) {
         Work w = null;
         try {
-            ScanUnit previous = null;
-            ContigStore seq = null;
             int maxPeriod = filters.maxPeriod();
             WindowRuns.Keep keep = this::keep;
             for (ScanUnit u : units) {
-                if (previous == null || previous.source() != u.source() || previous.contig() != u.contig()) {
-                    synchronized (stores) {
-                        if (Thread.currentThread().isInterrupted()) {
-                            return;
-                        }
-                        seq = ContigStore.open(u.contig(), u.source().stream(u.contig()), inMemoryMax);
-                        stores.add(seq);
-                    }
-                }
-                previous = u;
-                if (!u.wholeContig()) {
-                    // the context around a part may have to grow after its windows are done, so read it all
-                    seq.fill(u.contig().length());
-                }
                 int[] range = initialRange(u);
+                ContigStore seq = stores.open(u, range[0], range[1]);
+                if (!u.wholeContig()) {
+                    // the scorer reads a little beyond the windows' stretch
+                    seq.fill(seq.end);
+                }
                 w = new Work(u, seq, new WindowPlan(range[0], range[1], settings.window(), maxPeriod));
                 queue.put(w);
                 ContigStore s = seq;
@@ -253,7 +270,8 @@ public final class GenomeScan {
         return new int[] {(int) lo, (int) hi};
     }
 
-    private void consume(Work w, ExecutorService pool, Semaphore permits, Output out) throws InterruptedException {
+    private void consume(Work w, ExecutorService pool, Semaphore permits, Output out, Stores stores)
+            throws InterruptedException {
         ScanUnit u = w.unit;
         out.beginUnit(u, w.seq);
         WindowPlan plan = w.plan;
@@ -285,21 +303,30 @@ public final class GenomeScan {
         st.finish();
         if (!streamExact) {
             long margin = initialMargin;
+            ContigStore seq = w.seq;
             while (true) {
-                List<Locus> loci = settings.exact() ? exactFromRange(u, w.seq, plan, kept)
-                        : score(u, w.seq, plan, kept, pool, out);
+                List<Locus> loci = settings.exact() ? exactFromRange(u, seq, plan, kept)
+                        : score(u, seq, plan, kept, pool, out);
                 if (loci != null) {
                     for (Locus l : loci) {
                         out.locus(u, l);
                     }
                     break;
                 }
-                // the stretch of known runs was too short to decide: widen it and compute again
+                // the stretch of known runs was too short to decide: widen it, read it and compute again
                 margin *= 4;
                 int[] range = widen(u, margin);
+                if (seq != w.seq) {
+                    stores.close(seq);
+                }
+                seq = stores.open(u, range[0], range[1]);
+                seq.fill(seq.end);
                 plan = new WindowPlan(range[0], range[1], settings.window(), filters.maxPeriod());
                 kept = new RunList();
-                runRange(w.seq, plan, collector(u, plan, kept), pool);
+                runRange(seq, plan, collector(u, plan, kept), pool);
+            }
+            if (seq != w.seq) {
+                stores.close(seq);
             }
         }
         out.endUnit(u, w.seq);

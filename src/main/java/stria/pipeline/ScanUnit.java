@@ -14,14 +14,14 @@ public record ScanUnit(Source source, ContigInfo contig, int from, int to) {
     /** Where the bases of a contig come from (a genome file, or memory in tests). */
     @FunctionalInterface
     public interface Source {
-        /** The contig's bases front to back; called once per contig and scan. */
-        BaseStream stream(ContigInfo contig);
+        /** The contig's bases from {@code from} on, front to back. */
+        BaseStream stream(ContigInfo contig, int from);
 
         /** A source of contigs already in memory. */
         static Source of(Function<ContigInfo, byte[]> sequences) {
-            return contig -> {
+            return (contig, from) -> {
                 byte[] seq = sequences.apply(contig);
-                int[] at = {0};
+                int[] at = {from};
                 return (dst, off, n) -> {
                     System.arraycopy(seq, at[0], dst, off, n);
                     at[0] += n;

@@ -154,7 +154,7 @@ public final class LocusCaller {
      * {@link RecurrenceSeeds#find} and the reach computation where it would be for the whole contig, which
      * is why solving a copy gives the same loci, shifted.
      */
-    int readPad() {
+    public int readPad() {
         return RecurrenceSeeds.WINDOW + RecurrenceSeeds.K + 64 + 2 * settings.maxPeriod() + 32;
     }
 

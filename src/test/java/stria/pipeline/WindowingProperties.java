@@ -96,9 +96,9 @@ class WindowingProperties {
 
                 @Override
                 public void endUnit(ScanUnit unit, ContigBytes q) {
-                    byte[] all = new byte[q.length()];
-                    q.copy(0, q.length(), all, 0);
-                    assertThat(all).isEqualTo(seq);
+                    byte[] part = new byte[unit.to() - unit.from()];
+                    q.copy(unit.from(), unit.to(), part, 0);
+                    assertThat(part).isEqualTo(java.util.Arrays.copyOfRange(seq, unit.from(), unit.to()));
                 }
             });
         }
