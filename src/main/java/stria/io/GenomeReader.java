@@ -14,7 +14,6 @@ import java.util.Map;
 import java.util.function.Consumer;
 import java.util.function.Function;
 
-import htsjdk.samtools.SAMException;
 import htsjdk.samtools.util.BlockCompressedInputStream;
 import htsjdk.samtools.util.GZIIndex;
 import stria.StriaException;
@@ -245,7 +244,7 @@ public final class GenomeReader implements AutoCloseable {
         BlockCompressedInputStream.FileTermination end;
         try {
             end = BlockCompressedInputStream.checkTermination(path);
-        } catch (IOException | SAMException e) {
+        } catch (IOException | RuntimeException e) {
             throw new StriaException(display + ": truncated or corrupt BGZF data (" + InputCursor.oneLine(e) + ")", e);
         }
         switch (end) {

@@ -5,7 +5,6 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
 
-import htsjdk.samtools.SAMException;
 import htsjdk.samtools.reference.FastaSequenceIndex;
 import htsjdk.samtools.reference.FastaSequenceIndexEntry;
 import htsjdk.samtools.util.BlockCompressedInputStream;
@@ -56,7 +55,10 @@ final class IndexFiles {
                             + "); rebuild it (bgzip -r) or delete it");
                 }
             }
-        } catch (IOException | SAMException | IllegalArgumentException e) {
+        } catch (StriaException e) {
+            throw e;
+        } catch (IOException | RuntimeException e) {
+            // the library's decompressor fails on damaged blocks with index and argument errors too
             throw new StriaException(what + " does not match " + display + " (" + InputCursor.oneLine(e)
                     + "); rebuild it (bgzip -r) or delete it", e);
         }

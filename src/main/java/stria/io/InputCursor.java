@@ -69,7 +69,7 @@ final class InputCursor implements Closeable {
             } while (n == 0);
             lim = Math.max(n, 0);
             return n > 0;
-        } catch (IOException | SAMException e) {
+        } catch (IOException | RuntimeException e) {
             throw failure(e);
         }
     }
@@ -119,10 +119,10 @@ final class InputCursor implements Closeable {
             } else {
                 bgzf.seek(gzi.getVirtualOffsetForSeek(target));
             }
-        } catch (IOException | SAMException e) {
-            throw failure(e);
         } catch (IllegalArgumentException e) {
             throw new StriaException(display + ": cannot seek to offset " + target + " (" + oneLine(e) + ")", e);
+        } catch (IOException | RuntimeException e) {
+            throw failure(e);
         }
         bufStart = target;
         pos = 0;
@@ -143,7 +143,7 @@ final class InputCursor implements Closeable {
                     stream = bgzf;
                 }
             }
-        } catch (IOException | SAMException e) {
+        } catch (IOException | RuntimeException e) {
             throw failure(e);
         }
     }
@@ -166,7 +166,12 @@ final class InputCursor implements Closeable {
         return contentError;
     }
 
-    /** The user-facing form of a read failure: for compressed input it is almost always damage. */
+    /**
+     * The user-facing form of a read failure: for compressed input it is almost always damage. Callers
+     * pass any runtime exception of the library's decompressor too: on damaged blocks it fails with index
+     * and argument errors as well as its own exceptions (a block size field smaller than the block header
+     * gives an array index error).
+     */
     StriaException failure(Exception e) {
         damaged = true;
         if (kind == Compression.PLAIN) {

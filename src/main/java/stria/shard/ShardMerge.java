@@ -218,7 +218,10 @@ public final class ShardMerge {
                 order.check(p.file, line);
                 writeOrFail(out, line);
             }
-        } catch (IOException | UncheckedIOException | htsjdk.samtools.SAMException e) {
+        } catch (StriaException e) {
+            throw e;
+        } catch (IOException | RuntimeException e) {
+            // a damaged BGZF part can fail inside the library's decompressor with an index error
             throw new StriaException("cannot read " + p.file + ": " + message(e));
         }
     }
@@ -249,7 +252,10 @@ public final class ShardMerge {
                 }
                 lines.add(line);
             }
-        } catch (IOException | UncheckedIOException | htsjdk.samtools.SAMException e) {
+        } catch (StriaException e) {
+            throw e;
+        } catch (IOException | RuntimeException e) {
+            // a damaged BGZF part can fail inside the library's decompressor with an index error
             throw new StriaException("cannot read " + file + ": " + message(e));
         }
         ResultHeader h;

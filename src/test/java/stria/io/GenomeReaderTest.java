@@ -342,6 +342,60 @@ class GenomeReaderTest {
         refused(write(dir.resolve("t2.fa.gz"), Arrays.copyOf(b, b.length / 2)), "truncated or corrupt BGZF");
     }
 
+    /**
+     * BSIZE (bytes 16-17 of a BGZF block, SAM/BAM specification section 4.1) claims a block shorter than
+     * its own header and footer; the decompressor of the library then fails with an index error, which
+     * must still reach the user as damage.
+     */
+    @Test
+    void bgzfBlockSizeFieldTooSmall() throws Exception {
+        Path full = FastaFiles.writeBgzf(dir.resolve("full.fa.gz"), bytes(format(SAMPLE)));
+        for (int bsize = 17; bsize < 26; bsize++) {
+            byte[] b = Files.readAllBytes(full);
+            b[16] = (byte) bsize;
+            b[17] = 0;
+            refused(write(dir.resolve("bsize" + bsize + ".fa.gz"), b), "truncated or corrupt BGZF");
+        }
+    }
+
+    /**
+     * Every single-byte damage to the header, CRC32 and the low half of ISIZE of the first BGZF block (the
+     * fields of SAM/BAM specification section 4.1) either is refused with a one-line message naming the
+     * file or leaves the genome unchanged (fields no reader uses). The high half of ISIZE is left out: a
+     * damaged one makes the library allocate up to 2 GB before it notices.
+     */
+    @Test
+    void everyDamageToTheFirstBlocksFieldsIsRefusedOrHarmless() throws Exception {
+        Path full = FastaFiles.writeBgzf(dir.resolve("full.fa.gz"), bytes(format(SAMPLE)));
+        byte[] clean = Files.readAllBytes(full);
+        int blockSize = ((clean[16] & 0xFF) | (clean[17] & 0xFF) << 8) + 1;
+        List<Integer> fields = new ArrayList<>();
+        for (int i = 0; i < 18; i++) {
+            fields.add(i);
+        }
+        for (int i = blockSize - 8; i < blockSize - 2; i++) {
+            fields.add(i);
+        }
+        Path p = dir.resolve("damaged.fa.gz");
+        int refused = 0;
+        for (int at : fields) {
+            for (int mask = 1; mask < 256; mask++) {
+                byte[] b = clean.clone();
+                b[at] ^= (byte) mask;
+                write(p, b);
+                try {
+                    assertThat(read(p)).as("byte %d ^ %02X", at, mask).isEqualTo(CLEAN);
+                } catch (StriaException e) {
+                    assertThat(e.getMessage()).as("byte %d ^ %02X", at, mask).startsWith(p.toString())
+                            .doesNotContain("\n");
+                    refused++;
+                }
+            }
+        }
+        // the magic bytes, the block size and the CRC alone are refused whatever the damage
+        assertThat(refused).isGreaterThan((4 + 2 + 4) * 255);
+    }
+
     @Test
     void bgzfMissingOnlyItsEndMarkerIsReadWithAWarning() throws Exception {
         Path full = FastaFiles.writeBgzf(dir.resolve("full.fa.gz"), bytes(format(SAMPLE)));
