@@ -9,7 +9,9 @@ import stria.StriaException;
  * One streaming pass over a genome file that finds every record, its length and where its sequence
  * starts, and checks every byte on the way. It reads bytes, not lines: a chromosome written on one
  * line must cost no more than one written in short lines, and line numbers are needed for messages.
- * Knowing every length first is what lets the loader allocate each contig exactly once.
+ * Knowing every length first is what lets the loader allocate each contig exactly once. On the way it
+ * notes whether each record has a line layout (see {@link RecordTable}), at the cost of a few
+ * comparisons per line, so that a stream can later start in the middle of the record.
  */
 final class FastaPrePass {
     /** How much of the start of a file is inspected for control bytes before anything else. */
@@ -29,6 +31,21 @@ final class FastaPrePass {
     private String current;
     private long length;
     private long seqOffset;
+
+    // the line layout of the current record
+    /** Bases and line-end bytes of the first line with bases; 0 before it. */
+    private int width;
+    private int lineEnd;
+    /** A line shorter than the first, or ending otherwise, was seen: only empty lines may follow. */
+    private boolean closed;
+    private boolean ragged;
+    /** Offset of the first byte of the current line, and the record's bases before it. */
+    private long lineOffset;
+    private long lineBases;
+    /** Offset of the last CR seen by the byte loop, which tells a CRLF line end from a CR among the bases. */
+    private long lastCr = -1;
+    /** The byte loop stopped at the line end in.pos points at, for {@link #lineEnd} to look at the line. */
+    private boolean lineToCheck;
 
     private FastaPrePass(InputCursor in, String display) {
         this.in = in;
@@ -55,7 +72,15 @@ final class FastaPrePass {
                 case PREAMBLE -> preamble();
                 case NAME -> name();
                 case DESCRIPTION -> description();
-                case SEQUENCE -> sequence();
+                case SEQUENCE -> {
+                    if (lineToCheck) {
+                        lineEnd();
+                    } else if (ragged) {
+                        raggedSequence();
+                    } else {
+                        sequence();
+                    }
+                }
             }
         }
         switch (mode) {
@@ -170,6 +195,12 @@ final class FastaPrePass {
                 seqOffset = in.position();
                 mode = Mode.SEQUENCE;
                 lineStart = true;
+                lineOffset = seqOffset;
+                lineBases = 0;
+                width = 0;
+                lineEnd = 0;
+                closed = false;
+                ragged = false;
                 return;
             }
             if (FastaSyntax.isControl(c)) {
@@ -186,9 +217,62 @@ final class FastaPrePass {
                 + " in a header line; binary data, not a FASTA file");
     }
 
-    /** The hot loop: almost every byte of a genome passes through the inner scan of letters. */
+    /**
+     * The hot loop, for a record that may have a layout: whole lines that keep it are taken by
+     * {@link #fullLines}, then the bytes of one line up to its line end, where the loop stops for
+     * {@link #lineEnd} to note the line. A record found to have no layout is scanned by
+     * {@link #raggedSequence}. Neither loop holds a call but the scan of letters, which keeps both as fast
+     * as a scan that looks for no layout.
+     */
     private void sequence() {
-        final boolean[] letter = FastaSyntax.LETTER;
+        byte[] b = in.buf;
+        int i = in.pos;
+        int lim = in.lim;
+        long n = length;
+        if (lineStart) {
+            if (width > 0 && !closed) {
+                int j = fullLines(b, i, lim, width, lineEnd);
+                long k = (j - i) / (width + lineEnd);
+                n += k * width;
+                line += k;
+                lineOffset = in.position() - i + j;
+                lineBases = n;
+                i = j;
+            }
+            if (i < lim) {
+                if (b[i] == '>') {
+                    length = n;
+                    in.pos = i + 1;
+                    startHeader();
+                    return;
+                }
+                lineStart = false;
+            }
+        }
+        while (i < lim) {
+            int s = i;
+            i = FastaSyntax.letters(b, i, lim);
+            n += i - s;
+            if (i == lim) {
+                break;
+            }
+            int c = b[i];
+            if (c == '\n') {
+                lineToCheck = true;
+                break;
+            }
+            if (c != '\r') {
+                throw new StriaException(FastaSyntax.notALetter(display, current, line, c));
+            }
+            lastCr = in.position() - in.pos + i;
+            i++;
+        }
+        length = n;
+        in.pos = i;
+    }
+
+    /** The loop for a record known to have no layout, which has nothing to note at line ends. */
+    private void raggedSequence() {
         byte[] b = in.buf;
         int i = in.pos;
         int lim = in.lim;
@@ -204,9 +288,7 @@ final class FastaPrePass {
                 lineStart = false;
             }
             int s = i;
-            while (i < lim && letter[b[i] & 0xFF]) {
-                i++;
-            }
+            i = FastaSyntax.letters(b, i, lim);
             n += i - s;
             if (i == lim) {
                 break;
@@ -224,8 +306,64 @@ final class FastaPrePass {
         in.pos = i;
     }
 
+    /**
+     * Whole lines of {@code width} letters and a line end of {@code lineEnd} bytes (LF or CRLF) from the
+     * line start {@code i}: the line start after the last of them that fits before {@code lim}.
+     */
+    private static int fullLines(byte[] b, int i, int lim, int width, int lineEnd) {
+        int row = width + lineEnd;
+        while (lim - i >= row) {
+            int end = i + width;
+            if (FastaSyntax.letters(b, i, end) != end
+                    || (lineEnd == 1 ? b[end] != '\n' : b[end] != '\r' || b[end + 1] != '\n')) {
+                break;
+            }
+            i += row;
+        }
+        return i;
+    }
+
+    /** The line end the byte loop stopped at: notes the line for the layout, then passes the line end. */
+    private void lineEnd() {
+        lineToCheck = false;
+        long at = in.position();
+        noteLine(length - lineBases, at + 1 - lineOffset, lastCr == at - 1 ? 2 : 1);
+        line++;
+        lineStart = true;
+        in.pos++;
+        lineOffset = at + 1;
+        lineBases = length;
+    }
+
+    /**
+     * Notes a line of the current record for its layout.
+     *
+     * @param bytes the line's bytes with its line end, which is {@code eol} bytes long
+     */
+    private void noteLine(long bases, long bytes, int eol) {
+        // a line longer than any record stria reads has no use for a layout, and would overflow one
+        if (bytes != bases + eol || (bases > 0 && closed) || bases > Integer.MAX_VALUE - 2) {
+            ragged = true;
+        } else if (bases == 0) {
+            closed = true;
+        } else if (width == 0) {
+            width = (int) bases;
+            lineEnd = eol;
+        } else if (bases > width) {
+            ragged = true;
+        } else if (bases < width || eol != lineEnd) {
+            closed = true;
+        }
+    }
+
     private void endRecord() {
-        table.add(current, length, mode == Mode.SEQUENCE ? seqOffset : in.position(), headerLine);
+        boolean sequence = mode == Mode.SEQUENCE;
+        if (sequence && length > lineBases) {
+            // a last line without a line end, at the end of the file
+            noteLine(length - lineBases, in.position() - lineOffset + 1, 1);
+        }
+        table.add(current, length, sequence ? seqOffset : in.position(), headerLine,
+                sequence && length > 0 && !ragged ? width : 0, lineEnd);
         current = null;
     }
 }

@@ -39,6 +39,8 @@ public final class GenomeReader implements AutoCloseable {
     private final RecordTable table;
     private final int[] record;
     private final List<ContigInfo> contigs;
+    /** Whether the table, line layouts included, comes from a .fai rather than from reading the file. */
+    private final boolean fromIndex;
     private final Function<String, String> mismatch;
 
     private GenomeReader(String display, Path path, Path spooled, InputCursor cursor, RecordTable table,
@@ -48,6 +50,7 @@ public final class GenomeReader implements AutoCloseable {
         this.spooled = spooled;
         this.cursor = cursor;
         this.table = table;
+        this.fromIndex = fromIndex;
         this.mismatch = fromIndex
                 ? detail -> display + ".fai does not match " + display + " (" + detail
                         + "); rebuild it (samtools faidx) or delete it"
@@ -156,7 +159,9 @@ public final class GenomeReader implements AutoCloseable {
      * The whole sequence of a contig: its bytes as in the file without line ends, case kept. Cheapest in
      * file order; any order works.
      *
-     * @throws StriaException when a byte is not an IUPAC nucleotide letter, naming record, line and letter
+     * @throws StriaException when a byte is not an IUPAC nucleotide letter, naming record, line and letter,
+     *                        or when the record does not end, or its lines do not break, where the .fai or
+     *                        the pre-pass says
      */
     public synchronized byte[] sequence(ContigInfo c) {
         BaseStream bases = stream(c);
@@ -171,32 +176,53 @@ public final class GenomeReader implements AutoCloseable {
      * same file, and {@link #sequence}, may be used in turns (each stream keeps its own place); calls are
      * serialised on this reader. Going back in a gzip file, or in a BGZF file without .gzi, decompresses
      * again from the start, so there streams are cheapest read one after the other.
+     *
+     * <p>When the record's lines all hold the same number of bases (the last no more), as the .fai or the
+     * pre-pass says, every line end read must be where that layout puts it; a file that does not keep to
+     * it is refused like any other mismatch.
      */
     public BaseStream stream(ContigInfo c) {
+        return record(c);
+    }
+
+    /**
+     * The bases {@code [from, length)} of a contig as a stream; see {@link #stream(ContigInfo)}, which this
+     * is for {@code from == 0}. Whenever {@link #sequence} succeeds, the stream gives exactly its bases
+     * from {@code from} on.
+     *
+     * <p>When the record has a line layout, the stream starts at {@code from} directly: in a plain file,
+     * or BGZF with a .gzi, only the bytes from about there on are read. The line end before the line of
+     * {@code from} must be exactly the layout's. A layout taken from a .fai is only a claim, so there one
+     * whole line next to {@code from} (that of {@code from}, or the one before when that is the last) is
+     * read as well, and the stream is refused unless it is exactly as the index says. A record whose lines
+     * are not all alike, and one the .fai puts on a single line, is read from its start and the bases
+     * before {@code from} are dropped, without keeping them.
+     *
+     * <p>Started in the middle, the stream does not read the lines before those it checks: damage there
+     * (a bad letter, a line of another length, a CR among the bases) is not reported, and the bases given
+     * are those at the places the layout gives. Loading the whole contig reports it.
+     *
+     * @throws IllegalArgumentException when {@code from} is negative or past the length
+     * @throws StriaException            as the reads of a stream do; a problem in what is read to start
+     *                                   the stream is reported here
+     */
+    public BaseStream stream(ContigInfo c, int from) {
+        RecordStream in = record(c);
+        if (from < 0 || from > c.length()) {
+            throw new IllegalArgumentException("cannot start contig " + c.name() + " of " + c.length() + " bases at "
+                    + from);
+        }
+        in.enter(from, !fromIndex);
+        return in;
+    }
+
+    private RecordStream record(ContigInfo c) {
         if (c.index() >= contigs.size() || !contigs.get(c.index()).equals(c)) {
             throw new IllegalArgumentException("contig " + c + " is not from " + display);
         }
         int i = record[c.index()];
         return new RecordStream(this, cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
-                mismatch);
-    }
-
-    /**
-     * The bases {@code [from, length)} of a contig as a stream; see {@link #stream(ContigInfo)}. The bases
-     * before {@code from} are read, checked and dropped through a small buffer: nothing that grows with
-     * {@code from} is kept, and a bad letter there is reported as on a whole read. (Entering the record
-     * mid-way through its line layout would skip the read; plain files parse at over 1 GB/s, so it matters
-     * mainly for BGZF.)
-     */
-    public BaseStream stream(ContigInfo c, int from) {
-        BaseStream in = stream(c);
-        byte[] drop = new byte[1 << 16];
-        for (int left = from; left > 0; ) {
-            int n = Math.min(left, drop.length);
-            in.read(drop, 0, n);
-            left -= n;
-        }
-        return in;
+                table.basesPerLine(i), table.lineEnd(i), mismatch);
     }
 
     @Override

@@ -68,7 +68,8 @@ final class IndexFiles {
     /**
      * Reads a .fai and checks it against the file: each header line must be where the index puts it
      * and carry the indexed name, each sequence must end where its length and line layout say, and
-     * the file must end after the last record.
+     * the file must end after the last record. The line layouts are kept in the table as the index
+     * gives them; the lines between a record's first and last byte are not looked at here.
      */
     static RecordTable fromFai(Path faiPath, InputCursor in, String display) {
         String what = display + ".fai";
@@ -98,20 +99,23 @@ final class IndexFiles {
                     problem = "the header line has another name";
                     break;
                 }
-                table.add(name, 0, in.position(), 0);
+                table.add(name, 0, in.position(), 0, 0, 0);
                 next = in.position();
             }
             if (problem != null) {
                 throw new StriaException(what + " does not match " + display + " (record " + e.getContig() + ": "
                         + problem + "); rebuild it (samtools faidx) or delete it");
             }
-            table.add(e.getContig(), e.getSize(), e.getLocation(), 0);
+            // the layout is a claim: a stream entering the record in the middle checks it where it lands
+            boolean laidOut = e.getSize() > 0;
+            table.add(e.getContig(), e.getSize(), e.getLocation(), 0, laidOut ? e.getBasesPerLine() : 0,
+                    laidOut ? e.getBytesPerLine() - e.getBasesPerLine() : 0);
             next = e.getSize() == 0 ? e.getLocation() : lastBase(e) + 1;
         }
         Landing end = skipLineEnds(in, next);
         while (atHeader(end, in)) {
             String name = readHeader(in, display);
-            table.add(name, 0, in.position(), 0);
+            table.add(name, 0, in.position(), 0, 0, 0);
             end = skipLineEnds(in, in.position());
         }
         if (table.size() == 0 || end == Landing.PAST_END || in.peek() >= 0) {

@@ -3,9 +3,7 @@ package stria.io;
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
-import java.io.ByteArrayInputStream;
 import java.io.IOException;
-import java.io.InputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -17,7 +15,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
-import java.util.function.Function;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
 
@@ -33,6 +30,7 @@ import net.jqwik.api.lifecycle.AfterContainer;
 import net.jqwik.api.lifecycle.BeforeContainer;
 
 import stria.StriaException;
+import stria.io.FastaFiles.Form;
 
 /**
  * A contig read through {@link GenomeReader#stream} in pieces of any size is exactly what
@@ -43,15 +41,6 @@ import stria.StriaException;
 class BaseStreamProperties {
     private static Path dir;
     private static int counter;
-
-    /** How a genome reaches the reader; the forms with a .fai are read without a pre-pass. */
-    enum Form {
-        PLAIN, PLAIN_FAI, GZIP, BGZF, BGZF_FAI, BGZF_GZI, BGZF_FAI_GZI, STDIN;
-
-        boolean fai() {
-            return this == PLAIN_FAI || this == BGZF_FAI || this == BGZF_FAI_GZI;
-        }
-    }
 
     @BeforeContainer
     static void makeDir() throws IOException {
@@ -65,55 +54,8 @@ class BaseStreamProperties {
         }
     }
 
-    /** Writes the text in a form; for {@link Form#STDIN} the file holds what standard input will carry. */
     private static Path store(byte[] text, Form form) {
-        boolean compressed = form != Form.PLAIN && form != Form.PLAIN_FAI && form != Form.STDIN;
-        Path p = dir.resolve("g" + (counter++) + (compressed ? ".fa.gz" : ".fa"));
-        switch (form) {
-            case GZIP -> FastaFiles.write(p, FastaFiles.gzip(text));
-            case BGZF, BGZF_FAI, BGZF_GZI, BGZF_FAI_GZI -> FastaFiles.writeBgzf(p, text);
-            default -> FastaFiles.write(p, text);
-        }
-        if (form.fai()) {
-            FastaFiles.faidxLikeSamtools(p, text);
-        }
-        if (form == Form.BGZF_GZI || form == Form.BGZF_FAI_GZI) {
-            FastaFiles.gzindex(p);
-        }
-        return p;
-    }
-
-    /** Opens the stored genome, through standard input for {@link Form#STDIN}, and applies {@code use}. */
-    private static <T> T withReader(Path p, Form form, Function<GenomeReader, T> use) {
-        if (form != Form.STDIN) {
-            try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
-                return use.apply(r);
-            }
-        }
-        InputStream saved = System.in;
-        try {
-            System.setIn(new ByteArrayInputStream(Files.readAllBytes(p)));
-            try (GenomeReader r = GenomeReader.open("-", w -> { })) {
-                return use.apply(r);
-            }
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        } finally {
-            System.setIn(saved);
-        }
-    }
-
-    /**
-     * The next piece size: often 1, often about a line (so that pieces start and end on both sides of
-     * line ends), sometimes anything up to what is left.
-     */
-    private static int piece(Random rnd, int lineWidth, int left) {
-        int n = switch (rnd.nextInt(4)) {
-            case 0 -> 1;
-            case 1, 2 -> 1 + rnd.nextInt(2 * lineWidth + 3);
-            default -> 1 + rnd.nextInt(left);
-        };
-        return Math.min(n, left);
+        return FastaFiles.store(dir.resolve("g" + (counter++)), text, form);
     }
 
     private static String text(byte[] b, int off, int n) {
@@ -128,7 +70,7 @@ class BaseStreamProperties {
     void piecesGiveTheWholeSequence(@ForAll("genomes") Genome g, @ForAll Form form, @ForAll long seed) {
         Map<String, String> want = FastaFiles.expected(g.recs());
         Path p = store(g.text(), form);
-        withReader(p, form, r -> {
+        FastaFiles.withReader(p, form, r -> {
             Random rnd = new Random(seed);
             List<ContigInfo> order = new ArrayList<>(r.contigs());
             java.util.Collections.shuffle(order, rnd);
@@ -139,7 +81,7 @@ class BaseStreamProperties {
                 byte[] got = new byte[c.length() + 2];
                 int done = 0;
                 while (done < c.length()) {
-                    int n = piece(rnd, g.lineWidth(), c.length() - done);
+                    int n = FastaFiles.piece(rnd, g.lineWidth(), c.length() - done);
                     in.read(got, 1 + done, n);
                     done += n;
                     if (rnd.nextInt(4) == 0) {
@@ -161,7 +103,7 @@ class BaseStreamProperties {
     void interleavedStreamsKeepTheirPlaces(@ForAll("genomes") Genome g, @ForAll Form form, @ForAll long seed) {
         Map<String, String> want = FastaFiles.expected(g.recs());
         Path p = store(g.text(), form);
-        withReader(p, form, r -> {
+        FastaFiles.withReader(p, form, r -> {
             Random rnd = new Random(seed);
             interleave(r, r.contigs().get(rnd.nextInt(r.contigs().size())),
                     r.contigs().get(rnd.nextInt(r.contigs().size())), want, g.lineWidth(), rnd);
@@ -182,7 +124,7 @@ class BaseStreamProperties {
         Map<String, String> want = FastaFiles.expected(recs);
         byte[] text = FastaFiles.bytes(FastaFiles.format(recs, 60, "\n", true));
         for (Form form : Form.values()) {
-            withReader(store(text, form), form, r -> {
+            FastaFiles.withReader(store(text, form), form, r -> {
                 interleave(r, r.contigs().get(0), r.contigs().get(2), want, 400_000, rnd);
                 return null;
             });
@@ -197,7 +139,7 @@ class BaseStreamProperties {
         byte[] buf = new byte[Math.max(a.length(), b.length())];
         while (done[0] < a.length() || done[1] < b.length()) {
             int s = done[0] == a.length() ? 1 : done[1] == b.length() ? 0 : rnd.nextInt(2);
-            int n = piece(rnd, lineWidth, contig[s].length() - done[s]);
+            int n = FastaFiles.piece(rnd, lineWidth, contig[s].length() - done[s]);
             in[s].read(buf, 0, n);
             assertThat(text(buf, 0, n)).as(contig[s].name() + " at " + done[s])
                     .isEqualTo(want.get(contig[s].name()).substring(done[s], done[s] + n));
@@ -214,6 +156,8 @@ class BaseStreamProperties {
      * open (only the pre-pass would see the letter, and the index's line layout still lands on the real
      * last base). Read through a stream, every piece before the problem gives the right bases, the
      * piece that reaches it fails with the message {@code sequence} gives, and so does the same call again.
+     * A false length comes with a false line layout, so the problem is the first line end the two
+     * layouts disagree on (see {@link Claim#failure}), unless the claimed record ends before it.
      */
     @Property(tries = 200)
     void damageFailsAtThePieceThatReachesIt(@ForAll("genomes") Genome g, @ForAll("damages") Damage d,
@@ -237,26 +181,28 @@ class BaseStreamProperties {
         Path p = store(text, form);
         // the index describes the file as it was before the damage
         FastaFiles.faidxLikeSamtools(p, g.text());
-        int claimed = d.kind() == Kind.BAD_LETTER ? real.length() : d.claimIndex(g, target, p);
         String display = p.toString();
-        String expected = switch (d.kind()) {
+        int claimed;
+        String expected;
+        // the first base the reader cannot deliver; for a record longer than claimed, the last one it can
+        int problem;
+        if (d.kind() == Kind.BAD_LETTER) {
+            claimed = real.length();
+            problem = at;
             // a '>' opening a line starts a record of its own: the one read ends before it
-            case BAD_LETTER -> d.bad() == '>' && g.atLineStart(target, at)
+            expected = d.bad() == '>' && g.atLineStart(target, at)
                     ? stale(display, "record " + rec.name() + " ends after " + at + " of " + claimed + " bases")
                     : display + ": record " + rec.name() + ", line " + g.lineOf(g.baseOffset(target, at)) + ": "
                             + d.described() + " is not a nucleotide letter (IUPAC codes ACGTNRYSWKMBDHV only)";
-            case SHORTER -> stale(display, "record " + rec.name() + " ends after " + real.length() + " of " + claimed
-                    + " bases");
-            case LONGER -> stale(display, "record " + rec.name() + " has more than " + claimed + " bases");
-        };
-        // the first base the reader cannot deliver; for a record longer than claimed, the last one it can
-        int problem = switch (d.kind()) {
-            case BAD_LETTER -> at;
-            case SHORTER -> real.length();
-            case LONGER -> claimed - 1;
-        };
+        } else {
+            Claim claim = d.claimIndex(g, target, p);
+            claimed = claim.length();
+            Map.Entry<Integer, String> failure = claim.failure(g, target);
+            problem = failure.getKey();
+            expected = stale(display, failure.getValue());
+        }
         Map<String, String> want = FastaFiles.expected(g.recs());
-        withReader(p, form, r -> {
+        FastaFiles.withReader(p, form, r -> {
             Random rnd = new Random(seed);
             ContigInfo c = r.contigs().stream().filter(x -> x.name().equals(rec.name())).findFirst().orElseThrow();
             assertThat(c.length()).isEqualTo(claimed);
@@ -264,7 +210,7 @@ class BaseStreamProperties {
             byte[] buf = new byte[claimed];
             int done = 0;
             while (true) {
-                int n = piece(rnd, g.lineWidth(), claimed - done);
+                int n = FastaFiles.piece(rnd, g.lineWidth(), claimed - done);
                 int from = done;
                 if (done + n > problem) {
                     // a failed call leaves the place unchanged, so the same call fails again
@@ -290,8 +236,10 @@ class BaseStreamProperties {
 
     /**
      * Without an index a bad letter is caught by the pre-pass, unless the file changes after opening; the
-     * line is then counted from the header's line and the line ends passed, across pieces. The file is
-     * larger than the cursor's buffer, so reading the first record goes back to the file.
+     * line is then counted from the header's line and the line ends passed, across pieces, also in a
+     * stream started in the middle of the record (at the bad letter, on its line, lines before it). A
+     * stream started after the bad letter does not see it. The file is larger than the cursor's buffer,
+     * so reading the first record goes back to the file.
      */
     @Example
     void aLetterDamagedAfterOpeningIsReportedWithItsLine() throws IOException {
@@ -299,6 +247,7 @@ class BaseStreamProperties {
         List<FastaFiles.Rec> recs = List.of(new FastaFiles.Rec("first", "", FastaFiles.letters(rnd, 1_300_000)),
                 new FastaFiles.Rec("second", "", FastaFiles.letters(rnd, 1_300_000)));
         Genome g = new Genome(recs, 60, "\n", true);
+        String real = recs.get(0).seq();
         for (Form form : List.of(Form.PLAIN, Form.GZIP, Form.BGZF)) {
             for (int at : List.of(0, 59, 60, 777_777, 1_299_999)) {
                 Path p = store(g.text(), form);
@@ -310,21 +259,28 @@ class BaseStreamProperties {
                     // in place, as an editor or a copy would do it: the open file sees the new bytes
                     Files.write(p, Files.readAllBytes(store(damaged, form)));
                     ContigInfo c = r.contigs().get(0);
-                    BaseStream in = r.stream(c);
-                    byte[] buf = new byte[c.length()];
-                    int done = 0;
-                    while (true) {
-                        int n = piece(rnd, 60_000, c.length() - done);
-                        int from = done;
-                        if (done + n > at) {
-                            assertThatThrownBy(() -> in.read(buf, from, n)).as(form + " " + at)
-                                    .isInstanceOf(StriaException.class).hasMessage(expected);
-                            break;
+                    for (int start : List.of(0, at, at - at % 60, Math.max(0, at - 61), at / 2)) {
+                        BaseStream in = r.stream(c, start);
+                        byte[] buf = new byte[c.length()];
+                        int done = start;
+                        while (true) {
+                            int n = FastaFiles.piece(rnd, 60_000, c.length() - done);
+                            int from = done;
+                            if (done + n > at) {
+                                assertThatThrownBy(() -> in.read(buf, from, n)).as(form + " " + at + " from " + start)
+                                        .isInstanceOf(StriaException.class).hasMessage(expected);
+                                break;
+                            }
+                            in.read(buf, from, n);
+                            done += n;
                         }
-                        in.read(buf, from, n);
-                        done += n;
+                        assertThat(text(buf, start, done - start)).isEqualTo(real.substring(start, done));
                     }
-                    assertThat(text(buf, 0, done)).isEqualTo(recs.get(0).seq().substring(0, done));
+                    if (at + 1 < c.length()) {
+                        byte[] rest = new byte[c.length() - at - 1];
+                        r.stream(c, at + 1).read(rest, 0, rest.length);
+                        assertThat(text(rest, 0, rest.length)).isEqualTo(real.substring(at + 1));
+                    }
                     assertThatThrownBy(() -> r.sequence(c)).isInstanceOf(StriaException.class).hasMessage(expected);
                 }
             }
@@ -339,7 +295,7 @@ class BaseStreamProperties {
     void readingPastTheEndIsRefusedAndChangesNothing() {
         byte[] text = FastaFiles.bytes(">a\nACGT\nAC\n>b\nGGA\n");
         Path p = store(text, Form.PLAIN);
-        withReader(p, Form.PLAIN, r -> {
+        FastaFiles.withReader(p, Form.PLAIN, r -> {
             ContigInfo a = r.contigs().get(0);
             BaseStream in = r.stream(a);
             byte[] buf = new byte[8];
@@ -491,8 +447,8 @@ class BaseStreamProperties {
             return out;
         }
 
-        /** Rewrites the .fai line of record {@code i} with a false layout and returns the length it claims. */
-        int claimIndex(Genome g, int i, Path fasta) {
+        /** Rewrites the .fai line of record {@code i} with a false layout and returns what it claims. */
+        Claim claimIndex(Genome g, int i, Path fasta) {
             long bpl;
             long bytes;
             long claimed;
@@ -519,7 +475,40 @@ class BaseStreamProperties {
             } catch (IOException e) {
                 throw new UncheckedIOException(e);
             }
-            return (int) claimed;
+            return new Claim((int) bpl, (int) (bytes - bpl), (int) claimed);
+        }
+    }
+
+    /** What a false .fai line says of a record: bases per line, line-end bytes and length. */
+    record Claim(int width, int lineEnd, int length) {
+        /**
+         * Where reading record {@code i} from its start under this claim fails, and the detail of the
+         * message: the base the reader cannot deliver (for a record longer than claimed, the last one it
+         * can) and why. The layouts first disagree at the end of the first line of one of them.
+         */
+        Map.Entry<Integer, String> failure(Genome g, int i) {
+            String name = g.recs().get(i).name();
+            int real = g.recs().get(i).seq().length();
+            int first = Math.min(g.width() == 0 ? real : g.width(), real);
+            long line = g.lineOf(g.seqOffset(i));
+            int both = Math.min(width, first);
+            if (length <= both) {
+                return Map.entry(length - 1, "record " + name + " has more than " + length + " bases");
+            }
+            if (width < first) {
+                return Map.entry(width, "record " + name + ", line " + line + ": more than " + width
+                        + " bases on the line");
+            }
+            if (real == first) {
+                // the record is one line: after it comes the next header or the end of the file
+                return Map.entry(real, "record " + name + " ends after " + real + " of " + length + " bases");
+            }
+            if (width > first) {
+                return Map.entry(first, "record " + name + ", line " + line + ": line end after " + first + " of "
+                        + width + " bases");
+            }
+            return Map.entry(width, "record " + name + ", line " + line + ": line end is not "
+                    + (lineEnd == 1 ? "LF" : "CRLF"));
         }
     }
 

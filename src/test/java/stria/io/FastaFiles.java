@@ -1,7 +1,9 @@
 package stria.io;
 
+import java.io.ByteArrayInputStream;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
+import java.io.InputStream;
 import java.io.OutputStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
@@ -12,6 +14,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
+import java.util.function.Function;
 import java.util.zip.GZIPOutputStream;
 
 import htsjdk.samtools.reference.FastaSequenceIndexCreator;
@@ -21,6 +24,69 @@ import htsjdk.samtools.util.GZIIndex;
 /** Writes invented genomes in the forms users have them in, and reads them back in one call. */
 final class FastaFiles {
     private FastaFiles() {
+    }
+
+    /** How a genome reaches the reader; the forms with a .fai are read without a pre-pass. */
+    enum Form {
+        PLAIN, PLAIN_FAI, GZIP, BGZF, BGZF_FAI, BGZF_GZI, BGZF_FAI_GZI, STDIN;
+
+        boolean fai() {
+            return this == PLAIN_FAI || this == BGZF_FAI || this == BGZF_FAI_GZI;
+        }
+    }
+
+    /**
+     * Writes the text in a form, named {@code stem} with ".fa" or ".fa.gz" added, with the indexes the form
+     * has; for {@link Form#STDIN} the file holds what standard input will carry.
+     */
+    static Path store(Path stem, byte[] text, Form form) {
+        boolean compressed = form != Form.PLAIN && form != Form.PLAIN_FAI && form != Form.STDIN;
+        Path p = stem.resolveSibling(stem.getFileName() + (compressed ? ".fa.gz" : ".fa"));
+        switch (form) {
+            case GZIP -> write(p, gzip(text));
+            case BGZF, BGZF_FAI, BGZF_GZI, BGZF_FAI_GZI -> writeBgzf(p, text);
+            default -> write(p, text);
+        }
+        if (form.fai()) {
+            faidxLikeSamtools(p, text);
+        }
+        if (form == Form.BGZF_GZI || form == Form.BGZF_FAI_GZI) {
+            gzindex(p);
+        }
+        return p;
+    }
+
+    /** Opens a stored genome, through standard input for {@link Form#STDIN}, and applies {@code use}. */
+    static <T> T withReader(Path p, Form form, Function<GenomeReader, T> use) {
+        if (form != Form.STDIN) {
+            try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
+                return use.apply(r);
+            }
+        }
+        InputStream saved = System.in;
+        try {
+            System.setIn(new ByteArrayInputStream(Files.readAllBytes(p)));
+            try (GenomeReader r = GenomeReader.open("-", w -> { })) {
+                return use.apply(r);
+            }
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        } finally {
+            System.setIn(saved);
+        }
+    }
+
+    /**
+     * The next piece size: often 1, often about a line (so that pieces start and end on both sides of
+     * line ends), sometimes anything up to what is left.
+     */
+    static int piece(Random rnd, int lineWidth, int left) {
+        int n = switch (rnd.nextInt(4)) {
+            case 0 -> 1;
+            case 1, 2 -> 1 + rnd.nextInt(2 * lineWidth + 3);
+            default -> 1 + rnd.nextInt(left);
+        };
+        return Math.min(n, left);
     }
 
     /** A record of an invented genome. */
