@@ -17,6 +17,8 @@ import stria.StriaException;
             CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final String VERSION = versionString();
+    private static final String OUT_OF_MEMORY =
+            "stria: out of memory; give the JVM more with STRIA_JAVA_OPTS=-Xmx..., or fewer --threads";
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -35,7 +37,13 @@ public final class Main implements Runnable {
     /** Runs the command line and returns the exit code (used by tests too). */
     public static int run(String... args) {
         CommandLine cl = commandLine();
-        return cl.execute(args);
+        try {
+            return cl.execute(args);
+        } catch (OutOfMemoryError e) {
+            // thrown on the main thread it passes the execution handler, which sees only exceptions
+            System.err.println(OUT_OF_MEMORY);
+            return 1;
+        }
     }
 
     public static CommandLine commandLine() {
@@ -73,7 +81,7 @@ public final class Main implements Runnable {
         } else if (ex instanceof java.io.UncheckedIOException || ex instanceof htsjdk.samtools.util.RuntimeIOException) {
             err.println("stria: I/O error: " + (ex.getCause() != null ? ex.getCause().getMessage() : ex.getMessage()));
         } else if (ex.getCause() instanceof OutOfMemoryError) {
-            err.println("stria: out of memory; give the JVM more with STRIA_JAVA_OPTS=-Xmx..., or fewer --threads");
+            err.println(OUT_OF_MEMORY);
         } else {
             err.println("stria: internal error: " + ex + (debug ? "" : " (run with --debug for details)"));
         }

@@ -71,6 +71,8 @@ final class InputCursor implements Closeable {
             return n > 0;
         } catch (IOException | RuntimeException e) {
             throw failure(e);
+        } catch (OutOfMemoryError e) {
+            throw outOfMemory(e);
         }
     }
 
@@ -123,6 +125,8 @@ final class InputCursor implements Closeable {
             throw new StriaException(display + ": cannot seek to offset " + target + " (" + oneLine(e) + ")", e);
         } catch (IOException | RuntimeException e) {
             throw failure(e);
+        } catch (OutOfMemoryError e) {
+            throw outOfMemory(e);
         }
         bufStart = target;
         pos = 0;
@@ -177,7 +181,25 @@ final class InputCursor implements Closeable {
         if (kind == Compression.PLAIN) {
             return new StriaException(display + ": cannot read (" + oneLine(e) + ")", e);
         }
-        return new StriaException(display + ": truncated or corrupt " + kind.label + " data (" + oneLine(e) + ")", e);
+        // the decompressor's index and argument errors name no cause a user could act on
+        boolean bare = e instanceof RuntimeException && !(e instanceof SAMException);
+        return new StriaException(display + ": truncated or corrupt " + kind.label + " data ("
+                + (bare ? "a block does not decode" : oneLine(e)) + ")", e);
+    }
+
+    /**
+     * A BGZF block whose size field (ISIZE) is damaged makes the library's decompressor allocate up to
+     * 2 GB for it; valid blocks hold at most 64 KB, so running out of memory while reading compressed data
+     * almost always means such damage. The failed allocation left the heap as it was.
+     */
+    private StriaException outOfMemory(OutOfMemoryError e) {
+        damaged = true;
+        if (kind == Compression.PLAIN) {
+            throw e;
+        }
+        return new StriaException(display + ": truncated or corrupt " + kind.label + " data (a block claims more"
+                + " data than memory holds); if 'gzip -t' finds the file sound, give stria more memory with"
+                + " STRIA_JAVA_OPTS=-Xmx...", e);
     }
 
     static String oneLine(Throwable e) {

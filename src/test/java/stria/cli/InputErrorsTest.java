@@ -243,6 +243,19 @@ class InputErrorsTest {
                     byte[] b = Files.readAllBytes(t.bgzf("whole.fa.gz", bytes(CLEAN)));
                     return t.write("cut.bgzf.fa.gz", Arrays.copyOf(b, b.length - 50));
                 }, List.of("truncated or corrupt")),
+                // BSIZE and ISIZE are the block fields of SAM/BAM specification section 4.1
+                Arguments.of("BGZF block size field shorter than a block header", (Maker) t -> {
+                    byte[] b = Files.readAllBytes(t.bgzf("whole.fa.gz", bytes(CLEAN)));
+                    b[16] = 20;
+                    b[17] = 0;
+                    return t.write("bsize.fa.gz", b);
+                }, List.of("truncated or corrupt BGZF")),
+                Arguments.of("BGZF block claiming 2 GB of data", (Maker) t -> {
+                    byte[] b = Files.readAllBytes(t.bgzf("whole.fa.gz", bytes(CLEAN)));
+                    int end = ((b[16] & 0xFF) | (b[17] & 0xFF) << 8) + 1;
+                    b[end - 1] = 0x7F;
+                    return t.write("isize.fa.gz", b);
+                }, List.of("truncated or corrupt BGZF")),
                 Arguments.of("BGZF with another file's .fai", (Maker) t -> {
                     Path other = t.bgzf("other.fa.gz", bytes(fasta(GENOME.subList(1, 3), 60, "\n", true, false)));
                     faidx(other);
