@@ -7,28 +7,20 @@
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
-mvn -q -B -DskipTests package >&2
-work="${STRIA_BENCH_DIR:-$root/bench/out}"
-mkdir -p "$work"
+source bench/lib.sh
+bench_setup
 sizes=("$@")
 [[ ${#sizes[@]} -eq 0 ]] && sizes=(16 64 256)
-echo "machine: $(nproc) cores, $(free -g | awk '/Mem:/{print $2}') GiB, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | xargs)"
+machine
 echo "options: ${STRIA_BENCH_OPTS:-(defaults)}"
 printf "| genome | threads | wall s | MB/s | peak RSS MB | loci |\n|---|---|---|---|---|---|\n"
 for mb in "${sizes[@]}"; do
-  fa="$work/scale-${mb}M.fa"
-  if [[ ! -s "$fa" ]]; then
-    java -cp target/stria.jar stria.sim.GenomeSimulator --seed 11 --size "$((mb * 1000000))" --contigs 4 \
-      --major 0.75 --satellites 1 --satellite-length 400000 --out "$fa" --truth "$work/scale-${mb}M.truth.tsv" >&2
-  fi
+  fa=$(scale_genome "$WORK" "$mb")
   for t in 1 2; do
-    out="$work/scale-${mb}M-t$t.bed"
-    /usr/bin/time -v -o "$work/time.txt" scripts/stria scan --quiet --threads "$t" ${STRIA_BENCH_OPTS:-} \
-      --bed "$out" "$fa"
-    wall=$(awk -F': ' '/Elapsed \(wall clock\)/{print $2}' "$work/time.txt" | awk -F: '{ if (NF==3) print $1*3600+$2*60+$3; else print $1*60+$2 }')
-    rss=$(awk -F': ' '/Maximum resident set size/{print int($2/1024)}' "$work/time.txt")
+    out="$WORK/scale-${mb}M-t$t.bed"
+    timed "$WORK/time.txt" scripts/stria scan --quiet --threads "$t" ${STRIA_BENCH_OPTS:-} --bed "$out" "$fa"
     loci=$(grep -vc '^#' "$out" || true)
-    rate=$(awk -v m="$mb" -v w="$wall" 'BEGIN{printf "%.2f", m / w}')
-    printf "| %s Mb | %s | %s | %s | %s | %s |\n" "$mb" "$t" "$wall" "$rate" "$rss" "$loci"
+    rate=$(awk -v m="$mb" -v w="$WALL" 'BEGIN{printf "%.2f", m / w}')
+    printf "| %s Mb | %s | %s | %s | %s | %s |\n" "$mb" "$t" "$WALL" "$rate" "$RSS" "$loci"
   done
 done

@@ -2,6 +2,7 @@ package stria.io;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static stria.io.FastaFiles.text;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
@@ -10,13 +11,11 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
 import java.util.stream.Collectors;
-import java.util.stream.Stream;
 
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
@@ -48,19 +47,14 @@ class BaseStreamProperties {
     }
 
     @AfterContainer
-    static void removeDir() throws IOException {
-        try (Stream<Path> s = Files.walk(dir)) {
-            s.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-        }
+    static void removeDir() {
+        FastaFiles.deleteTree(dir);
     }
 
     private static Path store(byte[] text, Form form) {
         return FastaFiles.store(dir.resolve("g" + (counter++)), text, form);
     }
 
-    private static String text(byte[] b, int off, int n) {
-        return new String(b, off, n, StandardCharsets.ISO_8859_1);
-    }
 
     /**
      * Each contig, in random order, read in random pieces, with whole sequences of random contigs loaded

@@ -10,12 +10,10 @@ import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
-import java.util.stream.Stream;
 
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
@@ -47,10 +45,8 @@ class GenomeReaderProperties {
     }
 
     @AfterContainer
-    static void removeDir() throws IOException {
-        try (Stream<Path> s = Files.walk(dir)) {
-            s.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-        }
+    static void removeDir() {
+        FastaFiles.deleteTree(dir);
     }
 
     private static Path store(byte[] text, Form form, int keepPercent) {

@@ -2,24 +2,22 @@ package stria.io;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
+import static stria.io.FastaFiles.text;
 import static org.assertj.core.api.Assertions.fail;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Collections;
-import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
 import java.util.stream.Collectors;
-import java.util.stream.Stream;
 
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
@@ -52,19 +50,14 @@ class StreamFromProperties {
     }
 
     @AfterContainer
-    static void removeDir() throws IOException {
-        try (Stream<Path> s = Files.walk(dir)) {
-            s.sorted(Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
-        }
+    static void removeDir() {
+        FastaFiles.deleteTree(dir);
     }
 
     private static Path store(byte[] text, Form form) {
         return FastaFiles.store(dir.resolve("s" + (counter++)), text, form);
     }
 
-    private static String text(byte[] b, int off, int n) {
-        return new String(b, off, n, StandardCharsets.ISO_8859_1);
-    }
 
     private static String stalePrefix(Path p) {
         return p + ".fai does not match " + p + " (";
@@ -190,13 +183,7 @@ class StreamFromProperties {
     void damageAfterTheStartFailsAsLoadingDoes(@ForAll("uniformGenomes") Genome g,
                                                @ForAll("indexedForms") Form form, @ForAll long seed) {
         Random rnd = new Random(seed);
-        List<Integer> eligible = new ArrayList<>();
-        for (int i = 0; i < g.recs().size(); i++) {
-            if (!g.recs().get(i).lines().isEmpty()) {
-                eligible.add(i);
-            }
-        }
-        int target = eligible.get(rnd.nextInt(eligible.size()));
+        int target = g.anyRecordWithBases(rnd);
         Laid rec = g.recs().get(target);
         String real = rec.bases();
         int width = rec.lines().get(0).replace("\r", "").replace("\n", "").length();
@@ -373,13 +360,7 @@ class StreamFromProperties {
     void aFalseLayoutInTheIndexIsNeverReadAtTheWrongPlace(@ForAll("uniformGenomes") Genome g,
                                                           @ForAll("indexedForms") Form form, @ForAll long seed) {
         Random rnd = new Random(seed);
-        List<Integer> eligible = new ArrayList<>();
-        for (int i = 0; i < g.recs().size(); i++) {
-            if (!g.recs().get(i).lines().isEmpty()) {
-                eligible.add(i);
-            }
-        }
-        int target = eligible.get(rnd.nextInt(eligible.size()));
+        int target = g.anyRecordWithBases(rnd);
         Laid rec = g.recs().get(target);
         String real = rec.bases();
         List<int[]> lies = falseLayouts(g, target);
@@ -635,6 +616,17 @@ class StreamFromProperties {
      * with one line width (the last line may be shorter), otherwise records may be ragged.
      */
     record Genome(List<Laid> recs, String eol, boolean finalEol, boolean uniform) {
+
+        /** The index of a record with sequence, chosen at random. */
+        int anyRecordWithBases(Random rnd) {
+            List<Integer> eligible = new ArrayList<>();
+            for (int i = 0; i < recs.size(); i++) {
+                if (!recs.get(i).lines().isEmpty()) {
+                    eligible.add(i);
+                }
+            }
+            return eligible.get(rnd.nextInt(eligible.size()));
+        }
 
         byte[] text() {
             StringBuilder sb = new StringBuilder();

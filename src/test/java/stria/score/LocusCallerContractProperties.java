@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.ArrayList;
 import java.util.List;
+import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
@@ -98,17 +99,44 @@ class LocusCallerContractProperties {
 
     @Property(tries = 40)
     void enoughContextAlwaysAnswers(@ForAll long seed, @ForAll @IntRange(min = 0, max = 1000) int f) {
+        answersWithEnoughContext(seed, f);
+    }
+
+    /** Four long loci about a hundred bases apart, one stretch of joined reaches 6 kb long. */
+    @Example
+    void enoughContextAnswersAcrossAChainOfLoci() {
+        answersWithEnoughContext(4004478, 229);
+    }
+
+    private static void answersWithEnoughContext(long seed, int f) {
         byte[] seq = genome(seed, 30000);
         int len = seq.length;
         LocusCaller caller = new LocusCaller(SETTINGS);
         int from = (int) ((long) f * (len - 1) / 1000);
         int to = Math.min(len, from + 2000);
-        // planted loci here are at most 60 x 40 bases long: a stretch reaching well past one always holds
-        // a quiet point on each side
-        int margin = 3 * caller.minimumContext() + 2 * 2400;
-        int lo = Math.max(0, from - margin);
-        int hi = Math.min(len, to + margin);
         List<Locus> whole = caller.call(seq, len, seeds(caller, seq, 0, len), 0, len, 0, len);
+        // planted loci can lie a few dozen bases apart, and the reaches of their seeds then join them into
+        // one stretch without a quiet point: follow such chains of loci out from [from, to), then add room
+        // for a planted locus (at most 60 x 40 bases) and for the seeds around it
+        int join = 2 * LocusCaller.reach(SETTINGS.maxPeriod());
+        int a = from;
+        int b = to;
+        for (boolean grew = true; grew; ) {
+            grew = false;
+            for (Locus l : whole) {
+                if (l.start() < a && l.end() + join > a) {
+                    a = l.start();
+                    grew = true;
+                }
+                if (l.end() > b && l.start() - join < b) {
+                    b = l.end();
+                    grew = true;
+                }
+            }
+        }
+        int margin = 3 * caller.minimumContext() + 2 * 2400;
+        int lo = Math.max(0, a - margin);
+        int hi = Math.min(len, b + margin);
         assertThat(caller.call(seq, len, seeds(caller, seq, lo, hi), lo, hi, from, to))
                 .isEqualTo(restrict(whole, from, to));
     }
