@@ -54,7 +54,14 @@ public final class ScanCommand implements Callable<Integer> {
     static final int EXACT_MIN_LENGTH = 12;
     static final double EXACT_MIN_COPIES = 2;
     static final int DEFAULT_MAX_PERIOD = ScoreSettings.DEFAULT_MAX_PERIOD;
-    static final int DEFAULT_WINDOW = 4_000_000;
+    /**
+     * Default window: 256 Ki bases, or 64 max-periods when that is more (window overlap stays under 4 %),
+     * up to 4 M. Chosen by bench/window.sh (README): smaller windows keep the engine's arrays in cache;
+     * below 64 max-periods the overlap costs more than that gains.
+     */
+    static final int DEFAULT_WINDOW = 1 << 18;
+    static final int DEFAULT_WINDOW_PERIODS = 64;
+    static final int DEFAULT_WINDOW_MAX = 4_000_000;
 
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
@@ -122,8 +129,9 @@ public final class ScanCommand implements Callable<Integer> {
             + "here ${DEFAULT-VALUE}). The output is the same for any value.")
     int threads = Runtime.getRuntime().availableProcessors();
 
-    @Option(names = "--window", paramLabel = "SIZE", description = "Advanced: bases per window (default: 4M). "
-            + "Memory grows with window x threads; the output is the same for any value.")
+    @Option(names = "--window", paramLabel = "SIZE", description = "Advanced: bases per window (default: 256K, or "
+            + "64 x --max-period up to 4M when that is more). Memory grows with window x threads; the output is "
+            + "the same for any value.")
     String window;
 
     @Option(names = "--progress", description = "Report progress on stderr even when it is not a terminal.")
@@ -373,7 +381,8 @@ public final class ScanCommand implements Callable<Integer> {
         int win;
         int minWin = ScanSettings.minWindow(maxP);
         if (window == null) {
-            win = Math.max(DEFAULT_WINDOW, minWin);
+            win = (int) Math.max(minWin, Math.min(DEFAULT_WINDOW_MAX,
+                    Math.max(DEFAULT_WINDOW, (long) DEFAULT_WINDOW_PERIODS * maxP)));
         } else {
             long w = parseSize(window, "--window");
             require(w >= minWin && w <= 1_000_000_000L, "--window must be between " + minWin

@@ -30,9 +30,10 @@ import stria.score.ScoreSettings;
  * or shard piece, entered mid-record) front to back into a {@link ContigStore} and queues its windows on a
  * fixed pool as soon as their bases are in; the calling thread stitches the windows of each
  * unit in order and scores them in chunks, again on the pool, writing each chunk's loci as it comes. At
- * most {@code 2 threads + 4} windows are in flight and a contig longer than one window is kept in a
- * temporary file, not in memory, so memory depends on window length and thread count, not on contig
- * length (the exact runs a unit keeps as seeds, a few per kilobase, are the one part that grows with it).
+ * most {@code 2 threads + 4} windows are in flight and a contig longer than {@link #IN_MEMORY_MAX} (or one
+ * window) is kept in a temporary file, not in memory, so memory depends on window length and thread
+ * count, not on contig length (the exact runs a unit keeps as seeds, a few per kilobase, are the one part
+ * that grows with it).
  * Every decision that shapes the output depends only on the sequence, never on which thread or window did
  * the work, so the bytes written are the same for any thread count and window length.
  */
@@ -52,6 +53,11 @@ public final class GenomeScan {
 
     /** Length of the stretches scored as separate tasks; any value gives the same output. */
     static final int SCORE_CHUNK = 1 << 21;
+    /**
+     * Longest stretch held in an array rather than a temporary file (or one window, when longer): an
+     * assembly of many small contigs then never touches the disk.
+     */
+    static final int IN_MEMORY_MAX = 4_000_000;
 
     private final ScanSettings settings;
     private final ScoreSettings filters;
@@ -62,7 +68,8 @@ public final class GenomeScan {
     private final int inMemoryMax;
 
     public GenomeScan(ScanSettings settings, Progress progress) {
-        this(settings, progress, 65_536 + 8L * settings.filters().maxPeriod(), SCORE_CHUNK, settings.window());
+        this(settings, progress, 65_536 + 8L * settings.filters().maxPeriod(), SCORE_CHUNK,
+                Math.max(IN_MEMORY_MAX, settings.window()));
     }
 
     /**

@@ -535,13 +535,22 @@ public final class LocusCaller {
         if (m == null) {
             return null;
         }
-        Candidate k = align(seq, a, m, m.length, phaseMap[0], ce - a);
+        return vote(seq, align(seq, a, m, m.length, phaseMap[0], ce - a), ce - a);
+    }
+
+    /**
+     * Up to {@link #VOTE_ROUNDS} rounds of a candidate's own copies voting on its consensus, each kept only
+     * when realigning with it raises the score. {@code k} must be the last candidate {@link #align}ed (its
+     * counts are read), or null.
+     */
+    private Candidate vote(byte[] seq, Candidate k, int cap) {
+        int[] phaseMap = new int[1];
         for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
             byte[] next = consensus(counts, k.motif, k.phaseA, phaseMap);
             if (next == null || Arrays.equals(next, k.motif)) {
                 break;
             }
-            Candidate r = align(seq, a, next, next.length, phaseMap[0], ce - a);
+            Candidate r = align(seq, k.start, next, next.length, phaseMap[0], cap);
             if (r == null || r.score <= k.score) {
                 break;
             }
@@ -827,14 +836,15 @@ public final class LocusCaller {
     }
 
     /**
-     * The longest stretch of a losing candidate that no winner covers, realigned; null when it is too
-     * short or no longer passes the filters.
+     * The longest stretch of a losing candidate that no winner covers, realigned and voted on again; null
+     * when it is too short or no longer passes the filters.
      */
     private Candidate trimmed(byte[] seq, Candidate k, int g0, int g1) {
         if (g1 - g0 < Math.max(settings.minLength(), k.period + SEED_EXTRA)) {
             return null;
         }
-        Candidate r = align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0);
+        // the stretch votes on its own consensus: the loser's was shaped by the copies it lost
+        Candidate r = vote(seq, align(seq, g0, k.motif, k.period, k.phaseAt[g0 - k.start], g1 - g0), g1 - g0);
         return r != null && passes(r) ? r : null;
     }
 

@@ -6,6 +6,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Random;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.Test;
@@ -47,10 +48,20 @@ class DiskFullTest {
                     assertThat(left.toList()).as("files left on the full disk").isEmpty();
                 }
             }
-            // the temporary copy of a contig longer than one window, with TMPDIR on the full disk
+            // the temporary copy of a contig longer than 4 Mb, with TMPDIR on the full disk
+            Path longContig = dir.resolve("long.fa");
+            Random rnd = new Random(7);
+            StringBuilder fa = new StringBuilder(">long\n");
+            for (int i = 0; i < 5_000_000; i++) {
+                fa.append("ACGT".charAt(rnd.nextInt(4)));
+                if (i % 80 == 79) {
+                    fa.append('\n');
+                }
+            }
+            Files.writeString(longContig, fa.append('\n'));
             Cli.Result r = Cli.exec(dir, null, List.of("env", "TMPDIR=" + mnt,
-                    Cli.projectDir().resolve("scripts/stria").toString(), "scan", "--window", "64k", "--bed",
-                    dir.resolve("spooled.bed").toString(), ScanCommandTest.DEMO.toString()));
+                    Cli.projectDir().resolve("scripts/stria").toString(), "scan", "--bed",
+                    dir.resolve("spooled.bed").toString(), longContig.toString()));
             assertThat(r.exit()).as(r.err()).isEqualTo(1);
             assertThat(r.err().strip().lines().count()).as(r.err()).isEqualTo(1);
             assertThat(r.err()).containsIgnoringCase("no space left on device").contains(mnt.toString())
