@@ -182,7 +182,8 @@ final class InputCursor implements Closeable {
             return new StriaException(display + ": cannot read (" + oneLine(e) + ")", e);
         }
         // the decompressor's index and argument errors name no cause a user could act on
-        boolean bare = e instanceof RuntimeException && !(e instanceof SAMException);
+        boolean bare = e instanceof IndexOutOfBoundsException
+                || (e instanceof RuntimeException && !(e instanceof SAMException) && e.getMessage() == null);
         return new StriaException(display + ": truncated or corrupt " + kind.label + " data ("
                 + (bare ? "a block does not decode" : oneLine(e)) + ")", e);
     }

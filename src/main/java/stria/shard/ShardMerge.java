@@ -223,6 +223,8 @@ public final class ShardMerge {
         } catch (IOException | RuntimeException e) {
             // a damaged BGZF part can fail inside the library's decompressor with an index error
             throw new StriaException("cannot read " + p.file + ": " + message(e));
+        } catch (OutOfMemoryError e) {
+            throw new StriaException("cannot read " + p.file + ": " + HUGE_BLOCK);
         }
     }
 
@@ -257,6 +259,8 @@ public final class ShardMerge {
         } catch (IOException | RuntimeException e) {
             // a damaged BGZF part can fail inside the library's decompressor with an index error
             throw new StriaException("cannot read " + file + ": " + message(e));
+        } catch (OutOfMemoryError e) {
+            throw new StriaException("cannot read " + file + ": " + HUGE_BLOCK);
         }
         ResultHeader h;
         try {
@@ -323,12 +327,23 @@ public final class ShardMerge {
         return a == 0x1f && b == 0x8b;
     }
 
+    /**
+     * A BGZF block whose ISIZE field is damaged makes the library's decompressor allocate up to 2 GB; valid
+     * blocks hold at most 64 KB.
+     */
+    private static final String HUGE_BLOCK = "a compressed block claims more data than memory holds; the file is"
+            + " most likely damaged (check it with 'gzip -t')";
+
     private static String message(Exception e) {
         if (e instanceof IOException io) {
             return AtomicOutputs.describe(io);
         }
         if (e instanceof UncheckedIOException u) {
             return AtomicOutputs.describe(u.getCause());
+        }
+        if (e instanceof IndexOutOfBoundsException) {
+            // the decompressor's index and argument errors name no cause a user could act on
+            return "a compressed block does not decode; the file is damaged";
         }
         return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
     }

@@ -132,6 +132,28 @@ class ShardMergeTest {
         assertThat(n.resolve("out.tsv")).doesNotExist();
     }
 
+    /**
+     * A BGZF part whose first block has a damaged BSIZE or ISIZE field (SAM/BAM specification section 4.1)
+     * is refused in one line naming it, not with a stack trace or a false out-of-memory advice.
+     */
+    @Test
+    void refusesDamagedBgzfParts() throws IOException {
+        Path n = scanShards("damaged", 2, ".gz", "-q", "--exact");
+        byte[] clean = Files.readAllBytes(n.resolve("shard-2.bed.gz"));
+        int blockEnd = ((clean[16] & 0xFF) | (clean[17] & 0xFF) << 8) + 1;
+        byte[] shortBlock = clean.clone();
+        shortBlock[16] = 20;
+        shortBlock[17] = 0;
+        byte[] hugeBlock = clean.clone();
+        hugeBlock[blockEnd - 1] = 0x7F;
+        for (byte[] damaged : List.of(shortBlock, hugeBlock)) {
+            Path part = Files.write(n.resolve("shard-2-damaged.bed.gz"), damaged);
+            assertRefused(n, List.of("merge", "--bed", "out.bed", n.resolve("shard-1.bed.gz").toString(),
+                    part.toString()), "cannot read", "shard-2-damaged.bed.gz");
+            assertThat(n.resolve("out.bed")).doesNotExist();
+        }
+    }
+
     private static void assertRefused(Path work, List<String> args, String fragment, String file) {
         Cli.Result r = Cli.stria(work, args.toArray(String[]::new));
         assertThat(r.exit()).as(r.err()).isEqualTo(1);
