@@ -55,11 +55,11 @@ public final class ScanCommand implements Callable<Integer> {
     static final double EXACT_MIN_COPIES = 2;
     static final int DEFAULT_MAX_PERIOD = ScoreSettings.DEFAULT_MAX_PERIOD;
     /**
-     * Default window: 256 Ki bases, or 64 max-periods when that is more (window overlap stays under 4 %),
-     * up to 4 M. Chosen by bench/window.sh (README): smaller windows keep the engine's arrays in cache;
-     * below 64 max-periods the overlap costs more than that gains.
+     * Default window: 256,000 bases, or 64 max-periods when that is more (window overlap stays under 4 %),
+     * up to 4,000,000. Chosen by bench/window.sh (README): smaller windows keep the engine's arrays in
+     * cache; below 64 max-periods the overlap costs more than that gains.
      */
-    static final int DEFAULT_WINDOW = 1 << 18;
+    static final int DEFAULT_WINDOW = 256_000;
     static final int DEFAULT_WINDOW_PERIODS = 64;
     static final int DEFAULT_WINDOW_MAX = 4_000_000;
 
