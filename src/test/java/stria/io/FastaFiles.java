@@ -35,10 +35,6 @@ final class FastaFiles {
         }
     }
 
-    /**
-     * Writes the text in a form, named {@code stem} with ".fa" or ".fa.gz" added, with the indexes the form
-     * has; for {@link Form#STDIN} the file holds what standard input will carry.
-     */
     /** Removes a scratch directory of a test class and everything in it. */
     static void deleteTree(Path dir) {
         try (java.util.stream.Stream<Path> s = Files.walk(dir)) {
@@ -53,6 +49,10 @@ final class FastaFiles {
         return new String(b, off, n, StandardCharsets.ISO_8859_1);
     }
 
+    /**
+     * Writes the text in a form, named {@code stem} with ".fa" or ".fa.gz" added, with the indexes the form
+     * has; for {@link Form#STDIN} the file holds what standard input will carry.
+     */
     static Path store(Path stem, byte[] text, Form form) {
         boolean compressed = form != Form.PLAIN && form != Form.PLAIN_FAI && form != Form.STDIN;
         Path p = stem.resolveSibling(stem.getFileName() + (compressed ? ".fa.gz" : ".fa"));
