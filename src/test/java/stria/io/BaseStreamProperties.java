@@ -38,21 +38,16 @@ import stria.io.FastaFiles.Form;
  * reaches it and no earlier one.
  */
 class BaseStreamProperties {
-    private static Path dir;
-    private static int counter;
+    private static FastaFiles.Scratch scratch;
 
     @BeforeContainer
-    static void makeDir() throws IOException {
-        dir = Files.createTempDirectory("stria-stream-");
+    static void makeDir() {
+        scratch = new FastaFiles.Scratch("stria-stream-");
     }
 
     @AfterContainer
     static void removeDir() {
-        FastaFiles.deleteTree(dir);
-    }
-
-    private static Path store(byte[] text, Form form) {
-        return FastaFiles.store(dir.resolve("g" + (counter++)), text, form);
+        scratch.delete();
     }
 
 
@@ -63,7 +58,7 @@ class BaseStreamProperties {
     @Property(tries = 150)
     void piecesGiveTheWholeSequence(@ForAll("genomes") Genome g, @ForAll Form form, @ForAll long seed) {
         Map<String, String> want = FastaFiles.expected(g.recs());
-        Path p = store(g.text(), form);
+        Path p = scratch.store(g.text(), form);
         FastaFiles.withReader(p, form, r -> {
             Random rnd = new Random(seed);
             List<ContigInfo> order = new ArrayList<>(r.contigs());
@@ -96,7 +91,7 @@ class BaseStreamProperties {
     @Property(tries = 150)
     void interleavedStreamsKeepTheirPlaces(@ForAll("genomes") Genome g, @ForAll Form form, @ForAll long seed) {
         Map<String, String> want = FastaFiles.expected(g.recs());
-        Path p = store(g.text(), form);
+        Path p = scratch.store(g.text(), form);
         FastaFiles.withReader(p, form, r -> {
             Random rnd = new Random(seed);
             interleave(r, r.contigs().get(rnd.nextInt(r.contigs().size())),
@@ -118,7 +113,7 @@ class BaseStreamProperties {
         Map<String, String> want = FastaFiles.expected(recs);
         byte[] text = FastaFiles.bytes(FastaFiles.format(recs, 60, "\n", true));
         for (Form form : Form.values()) {
-            FastaFiles.withReader(store(text, form), form, r -> {
+            FastaFiles.withReader(scratch.store(text, form), form, r -> {
                 interleave(r, r.contigs().get(0), r.contigs().get(2), want, 400_000, rnd);
                 return null;
             });
@@ -172,7 +167,7 @@ class BaseStreamProperties {
         if (d.kind() == Kind.BAD_LETTER) {
             text[(int) g.baseOffset(target, at)] = (byte) d.bad();
         }
-        Path p = store(text, form);
+        Path p = scratch.store(text, form);
         // the index describes the file as it was before the damage
         FastaFiles.faidxLikeSamtools(p, g.text());
         String display = p.toString();
@@ -238,20 +233,19 @@ class BaseStreamProperties {
     @Example
     void aLetterDamagedAfterOpeningIsReportedWithItsLine() throws IOException {
         Random rnd = new Random(9);
-        List<FastaFiles.Rec> recs = List.of(new FastaFiles.Rec("first", "", FastaFiles.letters(rnd, 1_300_000)),
-                new FastaFiles.Rec("second", "", FastaFiles.letters(rnd, 1_300_000)));
+        List<FastaFiles.Rec> recs = FastaFiles.twoLongRecords(rnd, 1_300_000);
         Genome g = new Genome(recs, 60, "\n", true);
         String real = recs.get(0).seq();
         for (Form form : List.of(Form.PLAIN, Form.GZIP, Form.BGZF)) {
             for (int at : List.of(0, 59, 60, 777_777, 1_299_999)) {
-                Path p = store(g.text(), form);
+                Path p = scratch.store(g.text(), form);
                 byte[] damaged = g.text();
                 damaged[(int) g.baseOffset(0, at)] = 'J';
                 String expected = p + ": record first, line " + g.lineOf(g.baseOffset(0, at))
                         + ": 'J' is not a nucleotide letter (IUPAC codes ACGTNRYSWKMBDHV only)";
                 try (GenomeReader r = GenomeReader.open(p.toString(), w -> { })) {
                     // in place, as an editor or a copy would do it: the open file sees the new bytes
-                    Files.write(p, Files.readAllBytes(store(damaged, form)));
+                    Files.write(p, Files.readAllBytes(scratch.store(damaged, form)));
                     ContigInfo c = r.contigs().get(0);
                     for (int start : List.of(0, at, at - at % 60, Math.max(0, at - 61), at / 2)) {
                         BaseStream in = r.stream(c, start);
@@ -288,7 +282,7 @@ class BaseStreamProperties {
     @Example
     void readingPastTheEndIsRefusedAndChangesNothing() {
         byte[] text = FastaFiles.bytes(">a\nACGT\nAC\n>b\nGGA\n");
-        Path p = store(text, Form.PLAIN);
+        Path p = scratch.store(text, Form.PLAIN);
         FastaFiles.withReader(p, Form.PLAIN, r -> {
             ContigInfo a = r.contigs().get(0);
             BaseStream in = r.stream(a);

@@ -35,6 +35,37 @@ final class FastaFiles {
         }
     }
 
+    /**
+     * The scratch directory of a test class: files in it get numbered names, so that every try of a
+     * property has its own; {@link #delete} removes it all after the class.
+     */
+    static final class Scratch {
+        private final Path dir;
+        private int counter;
+
+        Scratch(String prefix) {
+            try {
+                dir = Files.createTempDirectory(prefix);
+            } catch (IOException e) {
+                throw new java.io.UncheckedIOException(e);
+            }
+        }
+
+        /** A new name in the directory: {@code stem}, a number and {@code suffix}. */
+        Path file(String stem, String suffix) {
+            return dir.resolve(stem + (counter++) + suffix);
+        }
+
+        /** {@link FastaFiles#store} under a new name. */
+        Path store(byte[] text, Form form) {
+            return FastaFiles.store(file("g", ""), text, form);
+        }
+
+        void delete() {
+            deleteTree(dir);
+        }
+    }
+
     /** Removes a scratch directory of a test class and everything in it. */
     static void deleteTree(Path dir) {
         try (java.util.stream.Stream<Path> s = Files.walk(dir)) {
@@ -118,6 +149,14 @@ final class FastaFiles {
     }
 
     /** The genome most tests start from: four records of different sizes. */
+    /**
+     * Records "first" ({@code firstLength} random bases) and "second" (1,300,000): together larger than the
+     * reader's buffer, so reading the first record again goes back to the file.
+     */
+    static List<Rec> twoLongRecords(Random rnd, int firstLength) {
+        return List.of(new Rec("first", "", letters(rnd, firstLength)), new Rec("second", "", letters(rnd, 1_300_000)));
+    }
+
     static List<Rec> sample() {
         Random rnd = new Random(7);
         return List.of(new Rec("ctg1", "first invented contig", letters(rnd, 250)),

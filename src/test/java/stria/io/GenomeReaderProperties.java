@@ -34,27 +34,26 @@ import stria.StriaException;
  */
 class GenomeReaderProperties {
     private static final Duration LIMIT = Duration.ofSeconds(20);
-    private static Path dir;
-    private static int counter;
+    private static FastaFiles.Scratch scratch;
 
     enum Form { PLAIN, GZIP, BGZF }
 
     @BeforeContainer
-    static void makeDir() throws IOException {
-        dir = Files.createTempDirectory("stria-fuzz-");
+    static void makeDir() {
+        scratch = new FastaFiles.Scratch("stria-fuzz-");
     }
 
     @AfterContainer
     static void removeDir() {
-        FastaFiles.deleteTree(dir);
+        scratch.delete();
     }
 
     private static Path store(byte[] text, Form form, int keepPercent) {
-        Path p = dir.resolve("f" + (counter++) + (form == Form.PLAIN ? ".fa" : ".fa.gz"));
+        Path p = scratch.file("f", form == Form.PLAIN ? ".fa" : ".fa.gz");
         byte[] data = switch (form) {
             case PLAIN -> text;
             case GZIP -> FastaFiles.gzip(text);
-            case BGZF -> FastaFiles.bgzf(text, dir.resolve("scratch.gz"));
+            case BGZF -> FastaFiles.bgzf(text, scratch.file("scratch", ".gz"));
         };
         return FastaFiles.write(p, Arrays.copyOf(data, (int) ((long) data.length * keepPercent / 100)));
     }

@@ -41,21 +41,16 @@ import stria.io.FastaFiles.Form;
  * .gzi, the bytes before the start are not read.
  */
 class StreamFromProperties {
-    private static Path dir;
-    private static int counter;
+    private static FastaFiles.Scratch scratch;
 
     @BeforeContainer
-    static void makeDir() throws IOException {
-        dir = Files.createTempDirectory("stria-from-");
+    static void makeDir() {
+        scratch = new FastaFiles.Scratch("stria-from-");
     }
 
     @AfterContainer
     static void removeDir() {
-        FastaFiles.deleteTree(dir);
-    }
-
-    private static Path store(byte[] text, Form form) {
-        return FastaFiles.store(dir.resolve("s" + (counter++)), text, form);
+        scratch.delete();
     }
 
 
@@ -76,7 +71,7 @@ class StreamFromProperties {
     @Property(tries = 300)
     void startingAnywhereGivesTheRest(@ForAll("genomes") Genome g, @ForAll Form form, @ForAll long seed) {
         Map<String, String> want = g.expected();
-        Path p = store(g.text(), form);
+        Path p = scratch.store(g.text(), form);
         boolean mayRefuse = form.fai() && !g.uniform();
         try {
             FastaFiles.withReader(p, form, r -> {
@@ -157,7 +152,7 @@ class StreamFromProperties {
 
     @Example
     void aStartOutsideTheContigIsRefused() {
-        Path p = store(FastaFiles.bytes(">a\nACGT\nAC\n"), Form.PLAIN);
+        Path p = scratch.store(FastaFiles.bytes(">a\nACGT\nAC\n"), Form.PLAIN);
         FastaFiles.withReader(p, Form.PLAIN, r -> {
             ContigInfo a = r.contigs().get(0);
             assertThatThrownBy(() -> r.stream(a, -1)).isInstanceOf(IllegalArgumentException.class);
@@ -193,7 +188,7 @@ class StreamFromProperties {
         int problem = rnd.nextInt(bad == '>' ? real.length() - 1 : real.length());
         byte[] text = g.text();
         text[(int) g.offsetOf(target, problem)] = bad;
-        Path p = store(text, form);
+        Path p = scratch.store(text, form);
         // the index describes the file as it was before the damage
         FastaFiles.faidxLikeSamtools(p, g.text());
         int from = switch (rnd.nextInt(4)) {
@@ -245,8 +240,7 @@ class StreamFromProperties {
     @Example
     void aRecordChangedAfterOpeningFailsAsLoadingDoes() throws IOException {
         Random rnd = new Random(13);
-        List<FastaFiles.Rec> recs = List.of(new FastaFiles.Rec("first", "", FastaFiles.letters(rnd, 1_300_017)),
-                new FastaFiles.Rec("second", "", FastaFiles.letters(rnd, 1_300_000)));
+        List<FastaFiles.Rec> recs = FastaFiles.twoLongRecords(rnd, 1_300_017);
         String text = FastaFiles.format(recs, 60, "\n", true);
         String real = recs.get(0).seq();
         int n = real.length();
@@ -257,9 +251,9 @@ class StreamFromProperties {
             String why = longer ? "record first has more than " + n + " bases"
                     : "record first ends after " + (n - 1) + " of " + n + " bases";
             for (Form form : List.of(Form.PLAIN, Form.PLAIN_FAI, Form.GZIP, Form.BGZF, Form.BGZF_FAI, Form.STDIN)) {
-                Path p = store(FastaFiles.bytes(text), form);
+                Path p = scratch.store(FastaFiles.bytes(text), form);
                 byte[] replacement = form == Form.STDIN ? FastaFiles.bytes(changed)
-                        : Files.readAllBytes(store(FastaFiles.bytes(changed), form));
+                        : Files.readAllBytes(scratch.store(FastaFiles.bytes(changed), form));
                 FastaFiles.withReader(p, form, r -> {
                     try {
                         // in place: the open file sees the new bytes
@@ -334,7 +328,7 @@ class StreamFromProperties {
         String text = ">a\n" + seq.substring(0, 60) + "\n" + seq.substring(60, 120) + "\n" + last.substring(0, 10) + "\r"
                 + last.substring(10) + "\n>b\nACGT\n";
         for (Form form : List.of(Form.PLAIN_FAI, Form.BGZF_FAI)) {
-            Path p = store(FastaFiles.bytes(text), form);
+            Path p = scratch.store(FastaFiles.bytes(text), form);
             FastaFiles.withReader(p, form, r -> {
                 ContigInfo a = r.contigs().get(0);
                 // the CR counted as a base
@@ -366,7 +360,7 @@ class StreamFromProperties {
         List<int[]> lies = falseLayouts(g, target);
         Assume.that(!lies.isEmpty());
         int[] lie = lies.get(rnd.nextInt(lies.size()));
-        Path p = store(g.text(), form);
+        Path p = scratch.store(g.text(), form);
         FastaFiles.faidxLikeSamtools(p, g.text());
         rewriteFai(p, rec.name(), f -> {
             f[1] = "" + lie[2];
@@ -417,7 +411,7 @@ class StreamFromProperties {
         List<int[]> lies = falseLayouts(g, 0).stream().filter(l -> l[0] >= 40 && l[0] < 100).toList();
         assertThat(lies).anyMatch(l -> l[0] == 50 && l[1] == 1);
         for (int[] lie : lies) {
-            Path p = store(text, Form.PLAIN_FAI);
+            Path p = scratch.store(text, Form.PLAIN_FAI);
             rewriteFai(p, "a", f -> {
                 f[1] = "" + lie[2];
                 f[3] = "" + lie[0];
@@ -486,7 +480,7 @@ class StreamFromProperties {
         Map<String, String> want = FastaFiles.expected(recs);
         want.put("one", oneLine.substring(5, oneLine.length() - 1));
         for (Form form : List.of(Form.PLAIN, Form.PLAIN_FAI, Form.BGZF_GZI, Form.BGZF_FAI_GZI)) {
-            Path p = store(text, form);
+            Path p = scratch.store(text, form);
             FastaFiles.withReader(p, form, r -> {
                 for (ContigInfo c : r.contigs()) {
                     if (c.name().equals("after") || (c.name().equals("one") && form.fai())) {
@@ -551,7 +545,7 @@ class StreamFromProperties {
                 {">w\r\nACGT\r\nACGT\n\nAC\r\n", "none"},
         };
         for (String[] c : cases) {
-            Path p = FastaFiles.write(dir.resolve("layout" + (counter++) + ".fa"), FastaFiles.bytes(c[0]));
+            Path p = FastaFiles.write(scratch.file("layout", ".fa"), FastaFiles.bytes(c[0]));
             try (InputCursor in = new InputCursor(p, Compression.PLAIN, null, p.toString())) {
                 RecordTable t = FastaPrePass.scan(in, p.toString());
                 String got = t.basesPerLine(0) == 0 ? "none" : t.basesPerLine(0) + " " + t.lineEnd(0);
@@ -581,7 +575,7 @@ class StreamFromProperties {
                         sb.append(seq, i, e).append(eol);
                         i = e;
                     }
-                    Path p = FastaFiles.write(dir.resolve("edge" + (counter++) + ".fa"), FastaFiles.bytes(sb.toString()));
+                    Path p = FastaFiles.write(scratch.file("edge", ".fa"), FastaFiles.bytes(sb.toString()));
                     try (InputCursor in = new InputCursor(p, Compression.PLAIN, null, p.toString())) {
                         RecordTable t = FastaPrePass.scan(in, p.toString());
                         assertThat(t.basesPerLine(0)).as(eol.length() + " " + there + " " + shift)
