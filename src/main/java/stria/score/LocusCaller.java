@@ -78,10 +78,6 @@ public final class LocusCaller {
         this.settings = settings;
     }
 
-    public ScoreSettings settings() {
-        return settings;
-    }
-
     /**
      * Whether an exact run takes part in scoring; the pipeline keeps only these in memory. Only short
      * periods: longer repeats are seeded from the sequence itself, so a few seeds per kilobase of random

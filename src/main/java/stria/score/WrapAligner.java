@@ -12,7 +12,8 @@ import stria.io.Bases;
  * a row is more than {@code xdrop} below the best score seen, the best cell is the end.
  *
  * <p>One instance per thread; it reuses its buffers, so a call allocates nothing once they have grown.
- * After {@link #extend} the path to the best cell can be walked with {@link #traceback}.
+ * After {@link #extend} the path to the best cell can be walked column by column ({@link #beginPath},
+ * {@link #nextColumn}).
  */
 public final class WrapAligner {
     /** Reward of a text base equal to the motif letter it is aligned with. */
@@ -201,18 +202,6 @@ public final class WrapAligner {
         return op;
     }
 
-    /**
-     * Walks the best path back to the anchor and reports each column to the sink, from the far end
-     * inwards. Returns nothing; the sink sees (text row i from 1 or 0 for a deletion, template letter j,
-     * op).
-     */
-    public void traceback(Sink sink) {
-        beginPath();
-        for (int op = nextColumn(); op >= 0; op = nextColumn()) {
-            sink.column(colI, colJ, (byte) op);
-        }
-    }
-
     private void unroll(byte[] motif, int p, int phase, int dir, int need) {
         int n = Math.max(need + 64, 2 * tmplLen);
         if (tscore[0].length < n) {
@@ -254,11 +243,6 @@ public final class WrapAligner {
             x += len;
         }
         tmplLen = n;
-    }
-
-    /** Receives the columns of a traced alignment. */
-    public interface Sink {
-        void column(int i, int j, byte op);
     }
 
     private void ensureRows(int rows) {
