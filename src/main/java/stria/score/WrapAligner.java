@@ -52,6 +52,7 @@ public final class WrapAligner {
     private int bestI;
     private int bestJ;
     private int bestScore;
+    private int rows;
 
     /** Text rows consumed by the best alignment. */
     public int bestI() {
@@ -65,6 +66,16 @@ public final class WrapAligner {
 
     public int bestScore() {
         return bestScore;
+    }
+
+    /** Text rows the last extend computed before it stopped (end of text, cap or X-drop). */
+    int rows() {
+        return rows;
+    }
+
+    /** Template letter of the first cell of the band of text row {@code i} (1..{@link #rows}). */
+    int bandStart(int i) {
+        return rowLo[i];
     }
 
     /**
@@ -91,6 +102,7 @@ public final class WrapAligner {
         int bestScore = 0;
         int floor = -xdrop;
         int pos = pos0;
+        int rows = 0;
         for (int i = 1; i <= cap; i++, pos += dir) {
             int t = Bases.code(seq[pos]);
             if (t < 0 || t > 3) {
@@ -136,6 +148,7 @@ public final class WrapAligner {
                 rowMax = Math.max(rowMax, best);
             }
             trace[i] = ops;
+            rows = i;
             int[] sw = prev;
             prev = cur;
             cur = sw;
@@ -155,6 +168,7 @@ public final class WrapAligner {
         this.bestI = bestI;
         this.bestJ = bestJ;
         this.bestScore = bestScore;
+        this.rows = rows;
     }
 
     // the walk along the best path: the cell reached so far, and the column last returned
