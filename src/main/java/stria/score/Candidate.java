@@ -3,23 +3,42 @@ package stria.score;
 import stria.io.Bases;
 
 /**
- * A candidate locus with the alignment figures needed to report it, trim it or vote on its consensus:
- * the motif as aligned ({@code motif}, read from phase {@code phaseA} at {@code start}) and the phase of
- * every base ({@code phaseAt}).
+ * A candidate locus {@code [start, end)} in the coordinates of the sequence it was aligned on (0-based, end
+ * exclusive), with the alignment figures needed to report it, trim it or vote on its consensus: the motif
+ * as aligned (codes 0..3, read from phase {@code phaseA} at {@code start}; its length is the period) and the
+ * phase of every base ({@code phaseAt[x - start]}). Immutable by convention: the arrays are never written
+ * after construction.
  */
 final class Candidate {
-    int start;
-    int end;
-    int period;
-    byte[] motif;
-    int phaseA;
-    int score;
-    int matches;
-    int mismatches;
-    int insertions;
-    int deletions;
-    int[] phaseAt;
-    boolean tiled;
+    final int start;
+    final int end;
+    final int period;
+    final byte[] motif;
+    final int phaseA;
+    final int score;
+    final int matches;
+    final int mismatches;
+    final int insertions;
+    final int deletions;
+    final int[] phaseAt;
+
+    Candidate(int start, byte[] motif, int phaseA, int score, VoteTally.PathCounts counts, int[] phaseAt) {
+        this.start = start;
+        this.end = start + phaseAt.length;
+        this.period = motif.length;
+        this.motif = motif;
+        this.phaseA = phaseA;
+        this.score = score;
+        this.matches = counts.matches();
+        this.mismatches = counts.mismatches();
+        this.insertions = counts.insertions();
+        this.deletions = counts.deletions();
+        this.phaseAt = phaseAt;
+    }
+
+    int length() {
+        return end - start;
+    }
 
     double purity() {
         int cols = matches + mismatches + insertions + deletions;

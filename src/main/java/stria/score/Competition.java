@@ -1,6 +1,7 @@
 package stria.score;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
 
@@ -39,6 +40,7 @@ final class Competition {
             Comparator.<Candidate>comparingInt(k -> -strength(k.score, k.period)).thenComparingInt(k -> k.period)
                     .thenComparingInt(k -> k.start).thenComparingInt(k -> k.end);
 
+    /** The winners among {@code cands} (sorted in place by position), sorted by start, end, period. */
     static List<Candidate> resolve(List<Candidate> cands, Trimmer trimmer) {
         cands.sort(BY_POSITION);
         List<Candidate> won = new ArrayList<>();
@@ -51,58 +53,72 @@ final class Competition {
                 end = Math.max(end, cands.get(j).end);
                 j++;
             }
-            List<Candidate> cluster = new ArrayList<>(cands.subList(i, j));
-            List<Candidate> order = tiling(cluster);
-            cluster.sort(BY_STRENGTH);
-            for (Candidate k : cluster) {
-                if (!k.tiled) {
-                    order.add(k);
-                }
-            }
-            List<Candidate> taken = new ArrayList<>();
-            Candidate last = null;
-            for (Candidate k : order) {
-                if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
-                    continue;
-                }
-                last = k;
-                Candidate kept = free(k, taken, trimmer);
-                if (kept != null) {
-                    taken.add(kept);
-                }
-            }
-            taken.sort(BY_POSITION);
-            won.addAll(taken);
+            won.addAll(resolveCluster(cands.subList(i, j), trimmer));
             i = j;
         }
         return won;
     }
 
+    private static List<Candidate> resolveCluster(List<Candidate> cluster, Trimmer trimmer) {
+        List<Candidate> taken = new ArrayList<>();
+        Candidate last = null;
+        for (Candidate k : order(cluster)) {
+            if (last != null && last.start == k.start && last.end == k.end && last.period == k.period) {
+                continue;
+            }
+            last = k;
+            Candidate kept = free(k, taken, trimmer);
+            if (kept != null) {
+                taken.add(kept);
+            }
+        }
+        taken.sort(BY_POSITION);
+        return taken;
+    }
+
+    /** The order candidates are taken in: the {@link #tiling}, then the rest, each strongest first. */
+    private static List<Candidate> order(List<Candidate> cluster) {
+        List<Candidate> order = new ArrayList<>();
+        boolean[] tiled = new boolean[cluster.size()];
+        for (int t : tiling(cluster)) {
+            tiled[t] = true;
+            order.add(cluster.get(t));
+        }
+        order.sort(BY_STRENGTH);
+        List<Candidate> rest = new ArrayList<>();
+        for (int t = 0; t < cluster.size(); t++) {
+            if (!tiled[t]) {
+                rest.add(cluster.get(t));
+            }
+        }
+        rest.sort(BY_STRENGTH);
+        order.addAll(rest);
+        return order;
+    }
+
     /**
-     * The set of candidates, overlapping at most at their edges, with the largest total strength
-     * (weighted interval scheduling), strongest first; each is marked as tiled. A locus that one longer
-     * period covers in one piece can still lose to two neighbours that explain its parts better, as with
-     * (GGAA)n(GCAA)m against a 12-base unit mixing both.
+     * Indices in {@code cluster} of the set of candidates, overlapping at most at their edges
+     * ({@link #core}), with the largest total {@link #weight} (weighted interval scheduling). A locus that
+     * one longer period covers in one piece can still lose to two neighbours that explain its parts
+     * better, as with (GGAA)n(GCAA)m against a 12-base unit mixing both.
      */
-    private static List<Candidate> tiling(List<Candidate> cluster) {
+    static int[] tiling(List<Candidate> cluster) {
         int n = cluster.size();
-        // edges may overlap by a few bases: extensions of neighbours often claim a base or two of each other
         int[] es = new int[n];
         int[] ee = new int[n];
         Integer[] byEnd = new Integer[n];
         for (int i = 0; i < n; i++) {
             Candidate k = cluster.get(i);
-            int tol = Math.min(EDGE_TOLERANCE, (k.end - k.start) / 8);
-            es[i] = k.start + tol;
-            ee[i] = k.end - tol;
+            es[i] = k.start + edgeTolerance(k);
+            ee[i] = k.end - edgeTolerance(k);
             byEnd[i] = i;
-            k.tiled = false;
         }
-        java.util.Arrays.sort(byEnd, (x, y) -> ee[x] != ee[y] ? Integer.compare(ee[x], ee[y])
+        Arrays.sort(byEnd, (x, y) -> ee[x] != ee[y] ? Integer.compare(ee[x], ee[y])
                 : BY_STRENGTH.compare(cluster.get(x), cluster.get(y)));
         long[] best = new long[n + 1];
         boolean[] use = new boolean[n + 1];
         int[] prev = new int[n + 1];
+        int used = 0;
         for (int r = 1; r <= n; r++) {
             int i = byEnd[r - 1];
             // last candidate in end order that ends at or before this one starts
@@ -116,8 +132,7 @@ final class Competition {
                     hi = mid - 1;
                 }
             }
-            Candidate k = cluster.get(i);
-            long with = best[lo] + Math.max(1, strength(k.score, k.period));
+            long with = best[lo] + weight(cluster.get(i));
             if (with > best[r - 1]) {
                 best[r] = with;
                 use[r] = true;
@@ -127,16 +142,27 @@ final class Competition {
                 prev[r] = r - 1;
             }
         }
-        List<Candidate> out = new ArrayList<>();
+        int[] chosen = new int[n];
         for (int r = n; r > 0; r = prev[r]) {
             if (use[r]) {
-                Candidate k = cluster.get(byEnd[r - 1]);
-                k.tiled = true;
-                out.add(k);
+                chosen[used++] = byEnd[r - 1];
             }
         }
-        out.sort(BY_STRENGTH);
-        return out;
+        return Arrays.copyOf(chosen, used);
+    }
+
+    /** What a candidate adds to a tiling: its strength, and at least 1, so that every locus counts. */
+    static long weight(Candidate k) {
+        return Math.max(1, strength(k.score, k.period));
+    }
+
+    /**
+     * Bases at each end of a candidate that may overlap a neighbour in the tiling: extensions of neighbours
+     * often claim a base or two of each other. Two candidates fit one tiling when their stretches without
+     * these bases do not overlap.
+     */
+    static int edgeTolerance(Candidate k) {
+        return Math.min(EDGE_TOLERANCE, k.length() / 8);
     }
 
     /** Bases at each end of a locus that may overlap a neighbour in the tiling. */

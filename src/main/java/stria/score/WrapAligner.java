@@ -12,7 +12,8 @@ import stria.io.Bases;
  * a row is more than {@code xdrop} below the best score seen, the best cell is the end.
  *
  * <p>One instance per thread; it reuses its buffers, so a call allocates nothing once they have grown.
- * After {@link #extend} the path to the best cell can be walked with {@link #traceback}.
+ * After {@link #extend} the path to the best cell can be walked column by column ({@link #beginPath},
+ * {@link #nextColumn}).
  */
 public final class WrapAligner {
     /** Reward of a text base equal to the motif letter it is aligned with. */
@@ -51,6 +52,7 @@ public final class WrapAligner {
     private int bestI;
     private int bestJ;
     private int bestScore;
+    private int rows;
 
     /** Text rows consumed by the best alignment. */
     public int bestI() {
@@ -64,6 +66,16 @@ public final class WrapAligner {
 
     public int bestScore() {
         return bestScore;
+    }
+
+    /** Text rows the last extend computed before it stopped (end of text, cap or X-drop). */
+    int rows() {
+        return rows;
+    }
+
+    /** Template letter of the first cell of the band of text row {@code i} (1..{@link #rows}). */
+    int bandStart(int i) {
+        return rowLo[i];
     }
 
     /**
@@ -90,6 +102,7 @@ public final class WrapAligner {
         int bestScore = 0;
         int floor = -xdrop;
         int pos = pos0;
+        int rows = 0;
         for (int i = 1; i <= cap; i++, pos += dir) {
             int t = Bases.code(seq[pos]);
             if (t < 0 || t > 3) {
@@ -135,6 +148,7 @@ public final class WrapAligner {
                 rowMax = Math.max(rowMax, best);
             }
             trace[i] = ops;
+            rows = i;
             int[] sw = prev;
             prev = cur;
             cur = sw;
@@ -154,6 +168,7 @@ public final class WrapAligner {
         this.bestI = bestI;
         this.bestJ = bestJ;
         this.bestScore = bestScore;
+        this.rows = rows;
     }
 
     // the walk along the best path: the cell reached so far, and the column last returned
@@ -201,18 +216,6 @@ public final class WrapAligner {
         return op;
     }
 
-    /**
-     * Walks the best path back to the anchor and reports each column to the sink, from the far end
-     * inwards. Returns nothing; the sink sees (text row i from 1 or 0 for a deletion, template letter j,
-     * op).
-     */
-    public void traceback(Sink sink) {
-        beginPath();
-        for (int op = nextColumn(); op >= 0; op = nextColumn()) {
-            sink.column(colI, colJ, (byte) op);
-        }
-    }
-
     private void unroll(byte[] motif, int p, int phase, int dir, int need) {
         int n = Math.max(need + 64, 2 * tmplLen);
         if (tscore[0].length < n) {
@@ -254,11 +257,6 @@ public final class WrapAligner {
             x += len;
         }
         tmplLen = n;
-    }
-
-    /** Receives the columns of a traced alignment. */
-    public interface Sink {
-        void column(int i, int j, byte op);
     }
 
     private void ensureRows(int rows) {

@@ -118,7 +118,7 @@ class LocusCallerContractProperties {
         // planted loci can lie a few dozen bases apart, and the reaches of their seeds then join them into
         // one stretch without a quiet point: follow such chains of loci out from [from, to), then add room
         // for a planted locus (at most 60 x 40 bases) and for the seeds around it
-        int join = 2 * LocusCaller.reach(SETTINGS.maxPeriod());
+        int join = 2 * QuietPoints.reach(SETTINGS.maxPeriod());
         int a = from;
         int b = to;
         for (boolean grew = true; grew; ) {

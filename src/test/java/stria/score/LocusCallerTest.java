@@ -248,8 +248,8 @@ class LocusCallerTest {
 
     @Test
     void entropyOfALocusIsThatOfItsBases() {
-        assertThat(LocusCaller.entropy("AAAA".getBytes(StandardCharsets.US_ASCII), 0, 4)).isZero();
-        assertThat(LocusCaller.entropy("ACGT".getBytes(StandardCharsets.US_ASCII), 0, 4)).isEqualTo(2.0);
-        assertThat(LocusCaller.entropy("acAC".getBytes(StandardCharsets.US_ASCII), 0, 4)).isEqualTo(1.0);
+        assertThat(Candidate.entropy("AAAA".getBytes(StandardCharsets.US_ASCII), 0, 4)).isZero();
+        assertThat(Candidate.entropy("ACGT".getBytes(StandardCharsets.US_ASCII), 0, 4)).isEqualTo(2.0);
+        assertThat(Candidate.entropy("acAC".getBytes(StandardCharsets.US_ASCII), 0, 4)).isEqualTo(1.0);
     }
 }

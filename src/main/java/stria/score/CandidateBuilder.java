@@ -1,0 +1,112 @@
+package stria.score;
+
+import java.util.Arrays;
+import stria.io.Bases;
+
+/**
+ * Builds candidates on one sequence with the buffers of one {@link ScoreWorkspace}: the seed's first copy
+ * is the provisional motif, the locus is extended both ways by aligning against the repeated motif
+ * ({@link WrapAligner}), the copies other than the seed's vote on the consensus ({@link VoteTally},
+ * {@link Consensus}), and a last alignment from the left end gives the right end and the counts, voted on
+ * again while the score rises ({@link #settle}).
+ */
+final class CandidateBuilder {
+    /** Copies that vote on the provisional consensus: plenty to outvote errors, bounded work in satellites. */
+    static final int VOTE_COPIES = 24;
+    /** Rounds of voting on the locus' own alignment; each must raise the score to be kept. */
+    static final int VOTE_ROUNDS = 3;
+
+    private final byte[] seq;
+    private final WrapAligner right;
+    private final WrapAligner left;
+    private final VoteTally tally;
+
+    CandidateBuilder(byte[] seq, ScoreWorkspace ws) {
+        this.seq = seq;
+        this.right = ws.right;
+        this.left = ws.left;
+        this.tally = ws.tally;
+    }
+
+    byte[] seq() {
+        return seq;
+    }
+
+    /** Score drop that ends an extension: a long unit may carry a burst of errors and still continue. */
+    static int xdrop(int p) {
+        return 30 + Math.min(p, 60);
+    }
+
+    /**
+     * The candidate seeded by period {@code p} at {@code s}, extended no further than {@code [cs, ce)} (the
+     * seed's component of reaches), or null when its first copy holds a letter other than ACGT, the
+     * extension is no longer than a copy and {@link LocusCaller#SEED_EXTRA} bases, or no consensus is left.
+     */
+    Candidate build(int s, int p, int cs, int ce) {
+        byte[] m0 = new byte[p];
+        for (int k = 0; k < p; k++) {
+            int code = Bases.code(seq[s + k]);
+            if (code < 0 || code > 3) {
+                return null;
+            }
+            m0[k] = (byte) code;
+        }
+        int xd = xdrop(p);
+        // the provisional consensus is voted on the first copies only; the final one on the whole locus.
+        // Both ends are found before any vote is counted: most candidates fail the length test and their
+        // paths are never walked
+        right.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
+        left.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
+        int leftLen = left.bestI();
+        if (leftLen + right.bestI() < p + LocusCaller.SEED_EXTRA) {
+            return null;
+        }
+        tally.clear(p);
+        // the seed copy, which the motif was read from, does not vote
+        tally.addPath(right, seq, s, 1, m0, 0, p, null);
+        tally.addPath(left, seq, s - 1, -1, m0, p - 1, 0, null);
+        int a = s - leftLen;
+        int phaseA = leftLen == 0 ? 0 : Math.floorMod(p - left.bestJ(), p);
+        Consensus c = Consensus.of(tally.counts(), m0, phaseA);
+        return c == null ? null : settle(a, c.motif(), c.phase(), ce - a);
+    }
+
+    /**
+     * {@link #align} followed by up to {@link #VOTE_ROUNDS} rounds of the candidate's own copies voting on
+     * its consensus, each kept only when realigning with it raises the score; null when nothing aligns.
+     */
+    Candidate settle(int a, byte[] motif, int phaseA, int cap) {
+        Candidate k = align(a, motif, phaseA, cap);
+        for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
+            // the tally holds the votes of k's alignment: align filled it last
+            Consensus next = Consensus.of(tally.counts(), k.motif, k.phaseA);
+            if (next == null || Arrays.equals(next.motif(), k.motif)) {
+                break;
+            }
+            Candidate r = align(k.start, next.motif(), next.phase(), cap);
+            if (r == null || r.score <= k.score) {
+                break;
+            }
+            k = r;
+        }
+        return k;
+    }
+
+    /**
+     * The alignment against {@code motif} repeated from phase {@code phaseA} at the fixed left end
+     * {@code a}, over at most {@code cap} bases: gives the right end, the counts and the phase of every
+     * base, and leaves its votes in the workspace's tally. Null when not one base aligns.
+     */
+    Candidate align(int a, byte[] motif, int phaseA, int cap) {
+        int p = motif.length;
+        right.extend(seq, a, 1, motif, p, phaseA, cap, xdrop(p));
+        int len = right.bestI();
+        if (len == 0) {
+            return null;
+        }
+        int[] phaseAt = new int[len];
+        tally.clear(p);
+        VoteTally.PathCounts counts = tally.addPath(right, seq, a, 1, motif, phaseA, 0, phaseAt);
+        return new Candidate(a, motif, phaseA, right.bestScore(), counts, phaseAt);
+    }
+}

@@ -1,0 +1,91 @@
+package stria.score;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * What the candidates built so far explain, so that a seed already inside a locus of its period (or, for
+ * a recurrence seed, of a period its distance is about a multiple of) adds nothing. Per period, the
+ * candidate reaching furthest right; and the candidates of recurrence periods still near the seeds to come.
+ * Seeds must be offered in order of the end of their first copy.
+ */
+final class SeedCoverage {
+    /** Candidates kept for the multiple test before those behind every later seed are dropped. */
+    private static final int ACTIVE_PRUNE = 64;
+
+    private final int maxPeriod;
+    private final int[] covS;
+    private final int[] covE;
+    private final List<Candidate> active = new ArrayList<>();
+
+    SeedCoverage(int maxPeriod) {
+        this.maxPeriod = maxPeriod;
+        covS = new int[maxPeriod + 3];
+        covE = new int[maxPeriod + 3];
+        Arrays.fill(covE, Integer.MIN_VALUE);
+    }
+
+    /** Whether the seed {@code [s, e)} of period p lies in a candidate already built. */
+    boolean explains(int s, int e, int p) {
+        if (active.size() > ACTIVE_PRUNE) {
+            // every later seed starts at or after this one's first-copy end minus the largest period
+            int horizon = s + p - maxPeriod;
+            active.removeIf(k -> k.end <= horizon);
+        }
+        return covered(s, e, p) || coveredByMultiple(s, e, p);
+    }
+
+    /** Records a candidate built from a seed of period {@code seedPeriod}. */
+    void add(Candidate k, int seedPeriod) {
+        mark(seedPeriod, k);
+        mark(k.period, k);
+        if (seedPeriod >= RecurrenceSeeds.MIN_PERIOD) {
+            active.add(k);
+        }
+    }
+
+    private boolean covered(int s, int e, int p) {
+        // recurrence distances wobble by a base or two around the period where copies carry indels
+        int tol = p >= RecurrenceSeeds.MIN_PERIOD ? 2 : 0;
+        for (int q = Math.max(1, p - tol); q <= Math.min(maxPeriod, p + tol); q++) {
+            int ov = Math.min(e, covE[q]) - Math.max(s, covS[q]);
+            if (2 * ov >= e - s) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * Whether a recurrence seed lies in a locus whose period its distance is a multiple of: in a
+     * satellite, words also recur two or three units apart wherever a unit between carries errors.
+     */
+    private boolean coveredByMultiple(int s, int e, int d) {
+        if (d < RecurrenceSeeds.MIN_PERIOD) {
+            return false;
+        }
+        for (Candidate k : active) {
+            if (k.end <= s) {
+                continue;
+            }
+            int ov = Math.min(e, k.end) - Math.max(s, k.start);
+            if (2 * ov < e - s) {
+                continue;
+            }
+            int m = Math.max(1, Math.round(d / (float) k.period));
+            // copies drift apart by their indels: allow 4 % of the distance
+            if (Math.abs(d - m * k.period) <= 2 + d / 25) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private void mark(int p, Candidate k) {
+        if (p < covE.length && k.end > covE[p]) {
+            covS[p] = k.start;
+            covE[p] = k.end;
+        }
+    }
+}
