@@ -222,7 +222,7 @@ public final class GenomeReader implements AutoCloseable {
         }
         int i = record[c.index()];
         return new RecordStream(this, cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
-                table.basesPerLine(i), table.lineEnd(i), mismatch);
+                table.layout(i), mismatch);
     }
 
     @Override
