@@ -9,7 +9,8 @@ import stria.StriaException;
  * One streaming pass over a genome file that finds every record, its length and where its sequence
  * starts, and checks every byte on the way. It reads bytes, not lines: a chromosome written on one
  * line must cost no more than one written in short lines, and line numbers are needed for messages.
- * Knowing every length first is what lets the loader allocate each contig exactly once. On the way it
+ * Knowing every name and length first is what lets a scan write its header and plan its work before
+ * reading any base, and decide how to hold each contig. On the way it
  * notes whether each record has a line layout (a {@link LineLayout.Finder}), at the cost of a few
  * comparisons per line, so that a stream can later start in the middle of the record.
  */
