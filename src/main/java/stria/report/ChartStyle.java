@@ -11,6 +11,7 @@ import java.io.Serializable;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.LegendItem;
 import org.jfree.chart.LegendItemCollection;
+import org.jfree.chart.axis.Axis;
 import org.jfree.chart.axis.AxisLocation;
 import org.jfree.chart.axis.CategoryAxis;
 import org.jfree.chart.axis.NumberAxis;
@@ -109,11 +110,7 @@ final class ChartStyle {
     }
 
     static CategoryAxis categoryAxis(String label) {
-        CategoryAxis a = new CategoryAxis(label);
-        a.setLabelFont(LABEL);
-        a.setLabelPaint(MUTED);
-        a.setTickLabelFont(TICK);
-        a.setTickLabelPaint(INK);
+        CategoryAxis a = lettered(new CategoryAxis(label));
         a.setAxisLinePaint(AXIS);
         a.setTickMarksVisible(false);
         a.setCategoryMargin(0.2);
@@ -124,11 +121,7 @@ final class ChartStyle {
     }
 
     static NumberAxis valueAxis(String label) {
-        NumberAxis a = new SpaciousAxis(label);
-        a.setLabelFont(LABEL);
-        a.setLabelPaint(MUTED);
-        a.setTickLabelFont(TICK);
-        a.setTickLabelPaint(INK);
+        NumberAxis a = lettered(new SpaciousAxis(label));
         a.setAxisLineVisible(false);
         a.setTickMarkPaint(AXIS);
         a.setNumberFormatOverride(Fmt.axis(false));
@@ -142,6 +135,15 @@ final class ChartStyle {
         a.setNumberFormatOverride(Fmt.axis(true));
         a.setTickUnit(new NumberTickUnit(1, Fmt.axis(true)));
         a.setRange(from, to);
+        return a;
+    }
+
+    /** The fonts and colours of an axis label and its tick labels. */
+    private static <A extends Axis> A lettered(A a) {
+        a.setLabelFont(LABEL);
+        a.setLabelPaint(MUTED);
+        a.setTickLabelFont(TICK);
+        a.setTickLabelPaint(INK);
         return a;
     }
 
@@ -189,12 +191,8 @@ final class ChartStyle {
 
     /** The colour scale beside a heat map; {@code log10} when the values are log10 of counts. */
     static PaintScaleLegend scaleLegend(Ramp scale, String label, boolean log10) {
-        NumberAxis a = new SpaciousAxis(label);
+        NumberAxis a = lettered(new SpaciousAxis(label));
         a.setRange(scale.getLowerBound(), scale.getUpperBound());
-        a.setLabelFont(LABEL);
-        a.setLabelPaint(MUTED);
-        a.setTickLabelFont(TICK);
-        a.setTickLabelPaint(INK);
         a.setAxisLinePaint(AXIS);
         a.setTickMarkPaint(AXIS);
         if (log10) {
