@@ -9,8 +9,9 @@ import stria.StriaException;
  * One streaming pass over a genome file that finds every record, its length and where its sequence
  * starts, and checks every byte on the way. It reads bytes, not lines: a chromosome written on one
  * line must cost no more than one written in short lines, and line numbers are needed for messages.
- * Knowing every length first is what lets the loader allocate each contig exactly once. On the way it
- * notes whether each record has a line layout (see {@link RecordTable}), at the cost of a few
+ * Knowing every name and length first is what lets a scan write its header and plan its work before
+ * reading any base, and decide how to hold each contig. On the way it
+ * notes whether each record has a line layout (a {@link LineLayout.Finder}), at the cost of a few
  * comparisons per line, so that a stream can later start in the middle of the record.
  */
 final class FastaPrePass {
@@ -32,13 +33,8 @@ final class FastaPrePass {
     private long length;
     private long seqOffset;
 
-    // the line layout of the current record
-    /** Bases and line-end bytes of the first line with bases; 0 before it. */
-    private int width;
-    private int lineEnd;
-    /** A line shorter than the first, or ending otherwise, was seen: only empty lines may follow. */
-    private boolean closed;
-    private boolean ragged;
+    /** The line layout of the current record. */
+    private final LineLayout.Finder layout = new LineLayout.Finder();
     /** Offset of the first byte of the current line, and the record's bases before it. */
     private long lineOffset;
     private long lineBases;
@@ -75,7 +71,7 @@ final class FastaPrePass {
                 case SEQUENCE -> {
                     if (lineToCheck) {
                         lineEnd();
-                    } else if (ragged) {
+                    } else if (layout.ragged()) {
                         raggedSequence();
                     } else {
                         sequence();
@@ -197,10 +193,7 @@ final class FastaPrePass {
                 lineStart = true;
                 lineOffset = seqOffset;
                 lineBases = 0;
-                width = 0;
-                lineEnd = 0;
-                closed = false;
-                ragged = false;
+                layout.reset();
                 return;
             }
             if (FastaSyntax.isControl(c)) {
@@ -230,7 +223,9 @@ final class FastaPrePass {
         int lim = in.lim;
         long n = length;
         if (lineStart) {
-            if (width > 0 && !closed) {
+            if (layout.open()) {
+                int width = layout.width();
+                int lineEnd = layout.lineEnd();
                 int j = fullLines(b, i, lim, width, lineEnd);
                 long k = (j - i) / (width + lineEnd);
                 n += k * width;
@@ -314,8 +309,7 @@ final class FastaPrePass {
         int row = width + lineEnd;
         while (lim - i >= row) {
             int end = i + width;
-            if (FastaSyntax.letters(b, i, end) != end
-                    || (lineEnd == 1 ? b[end] != '\n' : b[end] != '\r' || b[end + 1] != '\n')) {
+            if (FastaSyntax.letters(b, i, end) != end || !LineLayout.isLineEnd(b, end, lineEnd)) {
                 break;
             }
             i += row;
@@ -327,7 +321,7 @@ final class FastaPrePass {
     private void lineEnd() {
         lineToCheck = false;
         long at = in.position();
-        noteLine(length - lineBases, at + 1 - lineOffset, lastCr == at - 1 ? 2 : 1);
+        layout.line(length - lineBases, at + 1 - lineOffset, lastCr == at - 1 ? 2 : 1);
         line++;
         lineStart = true;
         in.pos++;
@@ -335,35 +329,14 @@ final class FastaPrePass {
         lineBases = length;
     }
 
-    /**
-     * Notes a line of the current record for its layout.
-     *
-     * @param bytes the line's bytes with its line end, which is {@code eol} bytes long
-     */
-    private void noteLine(long bases, long bytes, int eol) {
-        // a line longer than any record stria reads has no use for a layout, and would overflow one
-        if (bytes != bases + eol || (bases > 0 && closed) || bases > Integer.MAX_VALUE - 2) {
-            ragged = true;
-        } else if (bases == 0) {
-            closed = true;
-        } else if (width == 0) {
-            width = (int) bases;
-            lineEnd = eol;
-        } else if (bases > width) {
-            ragged = true;
-        } else if (bases < width || eol != lineEnd) {
-            closed = true;
-        }
-    }
-
     private void endRecord() {
         boolean sequence = mode == Mode.SEQUENCE;
         if (sequence && length > lineBases) {
             // a last line without a line end, at the end of the file
-            noteLine(length - lineBases, in.position() - lineOffset + 1, 1);
+            layout.line(length - lineBases, in.position() - lineOffset + 1, 1);
         }
         table.add(current, length, sequence ? seqOffset : in.position(), headerLine,
-                sequence && length > 0 && !ragged ? width : 0, lineEnd);
+                sequence ? layout.layout(length) : LineLayout.NONE);
         current = null;
     }
 }

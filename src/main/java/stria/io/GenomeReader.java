@@ -19,17 +19,22 @@ import htsjdk.samtools.util.GZIIndex;
 import stria.StriaException;
 
 /**
- * A genome file (FASTA: plain, gzip or BGZF, or standard input) as a list of contigs whose sequences
- * can be loaded one at a time, each into an array of exactly its length, or read in pieces.
+ * A genome file (FASTA: plain, gzip or BGZF, or standard input) as a list of contigs whose bases are
+ * read as streams ({@link #stream}), front to back in pieces of any size, from the first base or from any
+ * base of the record. The reader holds no sequence: per record only where it starts and its line layout,
+ * so a chromosome costs the caller's buffers and nothing more. {@link #sequence} loads one contig whole,
+ * for callers that want an array (tests, small inputs).
  *
  * <p>Decompression and the index formats come from htsjdk. The records themselves are parsed here,
- * byte by byte, because the FASTA readers of the library grow their buffers while reading (a large
- * chromosome would need three times its size) and do not report where a bad letter is.
+ * byte by byte, because the FASTA readers of the library hold whole sequences and grow their buffers
+ * while reading (a large chromosome would need three times its size) and do not report where a bad
+ * letter is.
  *
- * <p>Everything is checked when the file is opened (a pre-pass, or the .fai when one matches the file)
- * and every byte again when a sequence is loaded; all problems surface as {@link StriaException} with
- * the file named. Loading is serialised ({@link #sequence} and every read of a {@link #stream} hold this
- * reader's lock): one file is read by one cursor, and a pipeline asks for one contig at a time anyway.
+ * <p>Everything is checked when the file is opened (a pre-pass, or the .fai when one matches the file),
+ * which gives every name and length before any base is read; every byte is checked again as a stream
+ * reads it. All problems surface as {@link StriaException} with the file named. Reads are serialised
+ * ({@link #sequence} and every read of a {@link #stream} hold this reader's lock): one file is read by one
+ * cursor, and the scan reads it from one thread, one stretch after the other.
  */
 public final class GenomeReader implements AutoCloseable {
     private final String display;
@@ -222,7 +227,7 @@ public final class GenomeReader implements AutoCloseable {
         }
         int i = record[c.index()];
         return new RecordStream(this, cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
-                table.basesPerLine(i), table.lineEnd(i), mismatch);
+                table.layout(i), mismatch);
     }
 
     @Override

@@ -99,7 +99,7 @@ final class IndexFiles {
                     problem = "the header line has another name";
                     break;
                 }
-                table.add(name, 0, in.position(), 0, 0, 0);
+                table.add(name, 0, in.position(), 0, LineLayout.NONE);
                 next = in.position();
             }
             if (problem != null) {
@@ -107,15 +107,14 @@ final class IndexFiles {
                         + problem + "); rebuild it (samtools faidx) or delete it");
             }
             // the layout is a claim: a stream entering the record in the middle checks it where it lands
-            boolean laidOut = e.getSize() > 0;
-            table.add(e.getContig(), e.getSize(), e.getLocation(), 0, laidOut ? e.getBasesPerLine() : 0,
-                    laidOut ? e.getBytesPerLine() - e.getBasesPerLine() : 0);
-            next = e.getSize() == 0 ? e.getLocation() : lastBase(e) + 1;
+            LineLayout layout = e.getSize() > 0 ? layoutOf(e) : LineLayout.NONE;
+            table.add(e.getContig(), e.getSize(), e.getLocation(), 0, layout);
+            next = e.getSize() == 0 ? e.getLocation() : lastBase(e, layout) + 1;
         }
         Landing end = skipLineEnds(in, next);
         while (atHeader(end, in)) {
             String name = readHeader(in, display);
-            table.add(name, 0, in.position(), 0, 0, 0);
+            table.add(name, 0, in.position(), 0, LineLayout.NONE);
             end = skipLineEnds(in, in.position());
         }
         if (table.size() == 0 || end == Landing.PAST_END || in.peek() >= 0) {
@@ -158,9 +157,13 @@ final class IndexFiles {
         return name.toString(StandardCharsets.UTF_8);
     }
 
-    private static long lastBase(FastaSequenceIndexEntry e) {
-        long k = e.getSize() - 1;
-        return e.getLocation() + k / e.getBasesPerLine() * e.getBytesPerLine() + k % e.getBasesPerLine();
+    /** The layout an entry claims, or null when it is impossible. */
+    private static LineLayout layoutOf(FastaSequenceIndexEntry e) {
+        return LineLayout.fromIndex(e.getBasesPerLine(), e.getBytesPerLine());
+    }
+
+    private static long lastBase(FastaSequenceIndexEntry e, LineLayout layout) {
+        return e.getLocation() + layout.offset(e.getSize() - 1);
     }
 
     /** Why an entry does not describe the record whose header line was just read, or null when it does. */
@@ -172,11 +175,11 @@ final class IndexFiles {
         if (e.getSize() == 0) {
             return null;
         }
-        int terminator = e.getBytesPerLine() - e.getBasesPerLine();
-        if (e.getBasesPerLine() < 1 || terminator < 1 || terminator > 2) {
+        LineLayout layout = layoutOf(e);
+        if (layout == null) {
             return "impossible line layout";
         }
-        if (!in.moveTo(lastBase(e))) {
+        if (!in.moveTo(lastBase(e, layout))) {
             return "the file ends before the last base";
         }
         int c = in.peek();

@@ -13,7 +13,7 @@ import stria.StriaException;
  * stream starts. The cursor is shared by every stream of the file, so each call takes the reader's lock
  * and moves the cursor back to that offset first (cheap while it is still inside the cursor's buffer).
  *
- * <p>When the record has a line layout (see {@link RecordTable}) every line end passed must be exactly
+ * <p>When the record has a {@link LineLayout} every line end passed must be exactly
  * where and what the layout says: this costs a few comparisons per line, and it is what lets a stream
  * start in the middle of the record ({@link #enter}) and still notice a layout that is not the file's.
  * Without a layout line ends may come anywhere.
@@ -28,9 +28,7 @@ final class RecordStream implements BaseStream {
     private final int length;
     private final long seqOffset;
     private final long headerLine;
-    /** Bases on each full line, or 0 when the record has no layout; then {@link #lineEnd} means nothing. */
-    private final int width;
-    private final int lineEnd;
+    private final LineLayout layout;
     private final Function<String, String> mismatch;
 
     private int delivered;
@@ -46,12 +44,10 @@ final class RecordStream implements BaseStream {
      * @param seqOffset  uncompressed offset of the record's first sequence byte
      * @param headerLine line number of the record's header, or 0 when unknown (then it is counted only if
      *                   a message needs it)
-     * @param width      bases on each full line of the record, or 0 when it has no line layout
-     * @param lineEnd    bytes of each line end (1 or 2) when it has one
      * @param mismatch   the message for a record whose bases do not end where expected, given the detail
      */
     RecordStream(Object lock, InputCursor in, String display, String name, int length, long seqOffset,
-                 long headerLine, int width, int lineEnd, Function<String, String> mismatch) {
+                 long headerLine, LineLayout layout, Function<String, String> mismatch) {
         this.lock = lock;
         this.in = in;
         this.display = display;
@@ -59,8 +55,7 @@ final class RecordStream implements BaseStream {
         this.length = length;
         this.seqOffset = seqOffset;
         this.headerLine = headerLine;
-        this.width = width;
-        this.lineEnd = lineEnd;
+        this.layout = layout;
         this.mismatch = mismatch;
         this.offset = seqOffset;
     }
@@ -91,12 +86,13 @@ final class RecordStream implements BaseStream {
                 delivered = length;
                 return;
             }
-            if (width == 0 || (!trusted && length <= width)) {
+            if (!layout.exists() || (!trusted && layout.oneLine(length))) {
                 parse(null, 0, from);
                 return;
             }
-            long line = from / width;
-            long check = !trusted && line == (length - 1) / width ? line - 1 : line;
+            int width = layout.basesPerLine();
+            long line = layout.line(from);
+            long check = !trusted && line == layout.line(length - 1) ? line - 1 : line;
             placeAt(check * width);
             if (check > 0) {
                 checkLineStart();
@@ -110,9 +106,9 @@ final class RecordStream implements BaseStream {
 
     private void placeAt(long base) {
         delivered = (int) base;
-        lines = base / width;
-        column = (int) (base % width);
-        offset = seqOffset + lines * ((long) width + lineEnd) + column;
+        lines = layout.line(base);
+        column = layout.column(base);
+        offset = seqOffset + layout.offset(base);
     }
 
     /**
@@ -120,10 +116,11 @@ final class RecordStream implements BaseStream {
      * a byte that is not part of one (a bad letter there lies before the stream and is not reported).
      */
     private void checkLineStart() {
+        int lineEnd = layout.lineEnd();
         boolean ok = in.moveTo(offset - lineEnd - 1);
         for (int k = -1; ok && k < lineEnd; k++) {
             int c = in.peek();
-            ok = k < 0 ? c >= 0 && c != '\r' && c != '\n' : c == (k == lineEnd - 1 ? '\n' : '\r');
+            ok = k < 0 ? c >= 0 && c != '\r' && c != '\n' : c == layout.lineEndByte(k);
             if (ok) {
                 in.pos++;
             }
@@ -161,8 +158,9 @@ final class RecordStream implements BaseStream {
                     : "record " + name + " ends after " + delivered + " of " + length + " bases"));
         }
         final boolean[] letter = FastaSyntax.LETTER;
-        final boolean checked = width > 0;
-        final int full = checked ? width : Integer.MAX_VALUE;
+        final boolean checked = layout.exists();
+        final int full = checked ? layout.basesPerLine() : Integer.MAX_VALUE;
+        final int lineEnd = layout.lineEnd();
         long lines = this.lines;
         int column = this.column;
         boolean lineStart = column == 0;
@@ -187,7 +185,7 @@ final class RecordStream implements BaseStream {
                 if (early >= 0 && c != '\n' && c != '\r') {
                     in.pos = i;
                     throw layout(lineNumber(earlyLines, earlyAt), early < full ? "line end after " + early
-                            + " of " + full + " bases" : "line end is not " + (lineEnd == 1 ? "LF" : "CRLF"));
+                            + " of " + full + " bases" : "line end is not " + layout.lineEndName());
                 }
                 lineStart = false;
                 int s = i;

@@ -132,14 +132,14 @@ public final class HtmlReport {
 
         private void contigs() {
             out.println("<section><h2>Contigs</h2>");
-            int n = Charts.topContigs(r, Integer.MAX_VALUE).size();
-            String intro = n > Charts.TOP_CONTIGS
-                    ? "The " + Charts.TOP_CONTIGS + " longest contigs, the other " + Fmt.count(n - Charts.TOP_CONTIGS)
+            int n = DrawnContigs.scanned(r);
+            String intro = n > DrawnContigs.MAX
+                    ? "The " + DrawnContigs.MAX + " longest contigs, the other " + Fmt.count(n - DrawnContigs.MAX)
                     + " together, and the genome."
                     : n > 1 ? "Each contig and the genome." : "";
             if (n > 1 && s.genome().loci() > 0) {
                 figure("Share of each contig in repeats, by period class", intro,
-                        Charts.svg(Charts.contigShares(r, s), Charts.WIDTH, Charts.contigSharesHeight(r), "shares"));
+                        Charts.contigShares(ContigShares.of(r, s)));
             }
             contigTable();
             out.println("</section>");
@@ -210,54 +210,55 @@ public final class HtmlReport {
         private void periods() {
             out.println("<section><h2>Periods</h2>");
             figure("Loci and bases in loci by period", "Periods 1\u201310 one by one, longer periods in ranges.",
-                    Charts.svg(Charts.periods(r), Charts.WIDTH, 480, "periods"));
+                    Charts.periods(PeriodHistogram.of(r)));
             out.println("</section>");
         }
 
         private void motifs() {
             out.println("<section><h2>Motif classes</h2>");
-            int shown = Math.min(Charts.TOP_MOTIFS, r.motifClasses().size());
+            MotifRanking m = MotifRanking.of(r);
+            int shown = m.size();
             figure(shown == 1 ? "The motif class" : "The " + shown + " most frequent motif classes",
                     "A motif class joins a motif, its rotations and their reverse complements (AC, CA, GT, TG). "
                             + "Counts are loci; long motifs are shortened.",
-                    Charts.svg(Charts.motifs(r), Charts.WIDTH, Charts.motifsHeight(r), "motifs"));
+                    Charts.motifs(m));
             out.println("</section>");
         }
 
         private void density() {
             out.println("<section><h2>Repeat density along the contigs</h2>");
-            Charts.Density d = Charts.density(r);
+            RepeatDensity d = RepeatDensity.of(r);
             String bin = "Share of each bin of " + Fmt.bases(d.bin()) + " that lies in repeats";
-            int total = Charts.topContigs(r, Integer.MAX_VALUE).size();
-            String rest = total > d.contigs().size()
-                    ? " The " + d.contigs().size() + " longest of " + Fmt.count(total) + " contigs are drawn."
+            int total = DrawnContigs.scanned(r);
+            String rest = total > d.size()
+                    ? " The " + d.size() + " longest of " + Fmt.count(total) + " contigs are drawn."
                     : "";
-            if (d.contigs().size() <= 3) {
+            if (d.size() <= 3) {
                 StringBuilder svgs = new StringBuilder();
-                for (int t = 0; t < d.contigs().size(); t++) {
-                    svgs.append(Charts.svg(Charts.densityProfile(r, d, t), Charts.WIDTH, 260, "density" + t));
+                for (int t = 0; t < d.size(); t++) {
+                    svgs.append(Charts.densityProfile(d, t));
                 }
                 figure("Repeat density", bin + "." + rest, svgs.toString());
             } else {
                 figure("Repeat density", bin + "; the colour scale ends at "
                         + Fmt.percent(d.scaleMax() / 100) + " (darker bins are at least that dense)." + rest,
-                        Charts.svg(Charts.densityStrips(r, d), Charts.WIDTH, Charts.densityStripsHeight(d), "density"));
+                        Charts.densityStrips(d));
             }
             out.println("</section>");
         }
 
         private void lengthPurity() {
-            if (Charts.allExact(r)) {
+            if (r.allExact()) {
                 out.println("<section><h2>Lengths</h2>");
                 figure("Loci by length", "Every locus is an exact repeat (purity 1), so only length is shown; "
                                 + "bins of equal width on a log scale.",
-                        Charts.svg(Charts.lengths(r), Charts.WIDTH, 400, "lengths"));
+                        Charts.lengths(LengthHistogram.of(r)));
             } else {
                 out.println("<section><h2>Length and purity</h2>");
                 figure("Locus length against purity",
                         "Loci counted in cells of length (log scale) and purity; darker cells hold more loci "
                                 + "(colour on a log scale).",
-                        Charts.svg(Charts.lengthPurity(r), Charts.WIDTH, 440, "purity"));
+                        Charts.lengthPurity(LengthPurityGrid.of(r)));
             }
             out.println("</section>");
         }
@@ -310,7 +311,7 @@ public final class HtmlReport {
         }
 
         private static String dot(PeriodClass pc) {
-            java.awt.Color c = Charts.CLASS_COLOURS[pc.ordinal()];
+            java.awt.Color c = ChartStyle.CLASS_COLOURS[pc.ordinal()];
             return String.format("<span class=\"dot\" style=\"background:#%02x%02x%02x\"></span>", c.getRed(),
                     c.getGreen(), c.getBlue());
         }

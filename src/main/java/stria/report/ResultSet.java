@@ -34,4 +34,16 @@ public record ResultSet(List<String> files, ResultHeader header, List<String> co
         }
         return t;
     }
+
+    /** Whether every locus has purity 1 (exact runs): then purity carries no information to plot. */
+    public boolean allExact() {
+        for (ContigLoci l : loci) {
+            for (int i = 0; i < l.size(); i++) {
+                if (l.purity(i) < 1) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
 }

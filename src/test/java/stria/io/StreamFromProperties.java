@@ -548,7 +548,8 @@ class StreamFromProperties {
             Path p = FastaFiles.write(scratch.file("layout", ".fa"), FastaFiles.bytes(c[0]));
             try (InputCursor in = new InputCursor(p, Compression.PLAIN, null, p.toString())) {
                 RecordTable t = FastaPrePass.scan(in, p.toString());
-                String got = t.basesPerLine(0) == 0 ? "none" : t.basesPerLine(0) + " " + t.lineEnd(0);
+                LineLayout l = t.layout(0);
+                String got = l.exists() ? l.basesPerLine() + " " + l.lineEnd() : "none";
                 assertThat(got).as(c[0].replace("\r", "\\r").replace("\n", "\\n")).isEqualTo(c[1]);
             }
         }
@@ -578,7 +579,7 @@ class StreamFromProperties {
                     Path p = FastaFiles.write(scratch.file("edge", ".fa"), FastaFiles.bytes(sb.toString()));
                     try (InputCursor in = new InputCursor(p, Compression.PLAIN, null, p.toString())) {
                         RecordTable t = FastaPrePass.scan(in, p.toString());
-                        assertThat(t.basesPerLine(0)).as(eol.length() + " " + there + " " + shift)
+                        assertThat(t.layout(0).basesPerLine()).as(eol.length() + " " + there + " " + shift)
                                 .isEqualTo(there == 7 ? 7 : 0);
                     }
                     int near = buffer / (7 + eol.length()) * 7;

@@ -91,7 +91,7 @@ class ReportBrowserTest {
         assertThat(img.getWidth()).isEqualTo(1400);
         Set<Integer> colours = new HashSet<>();
         long nonWhite = 0;
-        long[] classPixels = new long[Charts.CLASS_COLOURS.length];
+        long[] classPixels = new long[ChartStyle.CLASS_COLOURS.length];
         for (int y = 0; y < img.getHeight(); y++) {
             for (int x = 0; x < img.getWidth(); x++) {
                 int rgb = img.getRGB(x, y) & 0xffffff;
@@ -100,7 +100,7 @@ class ReportBrowserTest {
                     nonWhite++;
                 }
                 for (int c = 0; c < classPixels.length; c++) {
-                    if (near(rgb, Charts.CLASS_COLOURS[c])) {
+                    if (near(rgb, ChartStyle.CLASS_COLOURS[c])) {
                         classPixels[c]++;
                     }
                 }

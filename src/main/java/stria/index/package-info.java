@@ -1,0 +1,8 @@
+/**
+ * Text indexes over a stretch of small-alphabet codes: the suffix array (SA-IS) and the LCP array (Kasai,
+ * Phi). The engine builds them per window, with workspaces kept by the caller between windows.
+ *
+ * <p>May use: the JDK only. Works on primitive arrays of codes and knows nothing of FASTA, contigs or
+ * repeats, so it can be tested against brute force on any string.
+ */
+package stria.index;
