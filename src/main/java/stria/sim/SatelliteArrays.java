@@ -3,8 +3,6 @@ package stria.sim;
 import htsjdk.samtools.reference.FastaReferenceWriter;
 import htsjdk.samtools.reference.FastaReferenceWriterBuilder;
 import htsjdk.samtools.util.BlockCompressedOutputStream;
-import htsjdk.samtools.util.IOUtil;
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.charset.StandardCharsets;
@@ -13,10 +11,8 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
-import java.util.Map;
 import java.util.Random;
 import java.util.concurrent.Callable;
 import java.util.stream.Stream;
@@ -530,50 +526,23 @@ public final class SatelliteArrays implements Callable<Integer> {
     /** Reads a truth table written by this class, by column name; gzip is fine. */
     public static List<TruthRow> readTruth(Path path) throws IOException {
         List<TruthRow> rows = new ArrayList<>();
-        try (BufferedReader r = IOUtil.openFileForBufferedReading(path)) {
-            Map<String, Integer> col = null;
-            String line;
-            int no = 0;
-            while ((line = r.readLine()) != null) {
-                no++;
-                if (line.isEmpty() || line.startsWith("#")) {
-                    continue;
-                }
-                String[] f = line.split("\t", -1);
-                if (col == null) {
-                    col = new HashMap<>();
-                    for (int i = 0; i < f.length; i++) {
-                        col.put(f[i], i);
-                    }
-                    for (String need : TruthRow.HEADER.split("\t")) {
-                        if (!col.containsKey(need)) {
-                            throw new IOException(path + ": no column " + need + " in the header");
-                        }
-                    }
-                    continue;
-                }
-                try {
-                    String[] piece = f[col.get("piece")].split("/");
-                    String w = f[col.get("div_within")];
-                    String gap = f[col.get("interruption")];
-                    int gs = -1;
-                    int ge = -1;
-                    if (!gap.equals("-")) {
-                        String[] g = gap.split("-");
-                        gs = Integer.parseInt(g[0]);
-                        ge = Integer.parseInt(g[1]);
-                    }
-                    rows.add(new TruthRow(f[col.get("array")], Integer.parseInt(piece[0]), Integer.parseInt(piece[1]),
-                            f[col.get("contig")], Integer.parseInt(f[col.get("start")]),
-                            Integer.parseInt(f[col.get("end")]), Integer.parseInt(f[col.get("unit")]),
-                            Integer.parseInt(f[col.get("block_units")]), Integer.parseInt(f[col.get("block_length")]),
-                            w.equals("-") ? Double.NaN : Double.parseDouble(w),
-                            Double.parseDouble(f[col.get("div_between")]), gs, ge));
-                } catch (RuntimeException e) {
-                    throw new IOException(path + " line " + no + ": not a truth row: " + line, e);
-                }
+        NamedColumns.read(path, TruthRow.HEADER.split("\t"), (col, f) -> {
+            String[] piece = f[col.get("piece")].split("/");
+            String w = f[col.get("div_within")];
+            String gap = f[col.get("interruption")];
+            int gs = -1;
+            int ge = -1;
+            if (!gap.equals("-")) {
+                String[] g = gap.split("-");
+                gs = Integer.parseInt(g[0]);
+                ge = Integer.parseInt(g[1]);
             }
-        }
+            rows.add(new TruthRow(f[col.get("array")], Integer.parseInt(piece[0]), Integer.parseInt(piece[1]),
+                    f[col.get("contig")], Integer.parseInt(f[col.get("start")]), Integer.parseInt(f[col.get("end")]),
+                    Integer.parseInt(f[col.get("unit")]), Integer.parseInt(f[col.get("block_units")]),
+                    Integer.parseInt(f[col.get("block_length")]), w.equals("-") ? Double.NaN : Double.parseDouble(w),
+                    Double.parseDouble(f[col.get("div_between")]), gs, ge));
+        });
         return rows;
     }
 }

@@ -1,8 +1,6 @@
 package stria.sim;
 
 import htsjdk.samtools.SAMException;
-import htsjdk.samtools.util.IOUtil;
-import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.PrintStream;
 import java.nio.file.Path;
@@ -369,38 +367,11 @@ public final class SatelliteScorer implements Callable<Integer> {
     /** Reads a stria TSV (plain or gzip) by column name. */
     public static Calls readCalls(Path p) throws IOException {
         List<Call> out = new ArrayList<>();
-        Map<String, Integer> col = null;
-        try (BufferedReader r = IOUtil.openFileForBufferedReading(p)) {
-            String line;
-            int no = 0;
-            while ((line = r.readLine()) != null) {
-                no++;
-                if (line.startsWith("#") || line.isEmpty()) {
-                    continue;
-                }
-                String[] f = line.split("\t", -1);
-                if (col == null) {
-                    col = new HashMap<>();
-                    for (int i = 0; i < f.length; i++) {
-                        col.put(f[i], i);
-                    }
-                    for (String need : new String[] {"chrom", "start", "end", "period"}) {
-                        if (!col.containsKey(need)) {
-                            throw new IOException(p + ": no column " + need + " in the header row");
-                        }
-                    }
-                    continue;
-                }
-                try {
-                    out.add(new Call(f[col.get("chrom")], Integer.parseInt(f[col.get("start")]),
-                            Integer.parseInt(f[col.get("end")]), Integer.parseInt(f[col.get("period")]),
-                            optionalInt(f, col.get("subunit_period")), optionalInt(f, col.get("subunits"))));
-                } catch (RuntimeException e) {
-                    throw new IOException(p + " line " + no + ": not a locus row: " + line, e);
-                }
-            }
-        }
-        return new Calls(out, col != null && col.containsKey("subunit_period"));
+        Map<String, Integer> cols = NamedColumns.read(p, new String[] {"chrom", "start", "end", "period"}, (col, f) ->
+            out.add(new Call(f[col.get("chrom")], Integer.parseInt(f[col.get("start")]),
+                    Integer.parseInt(f[col.get("end")]), Integer.parseInt(f[col.get("period")]),
+                    optionalInt(f, col.get("subunit_period")), optionalInt(f, col.get("subunits")))));
+        return new Calls(out, cols.containsKey("subunit_period"));
     }
 
     private static int optionalInt(String[] f, Integer at) {
