@@ -185,6 +185,35 @@ class SatelliteScorerTest {
     }
 
     @Test
+    void theRealCommandsTsvScores(@TempDir Path dir) throws IOException {
+        // the contract with the scan's TSV: it parses, and each array is found (whole or in pieces)
+        String[] common = {"--seed", "4", "--arrays", "1", "--contigs", "1", "--lengths", "30000", "--interrupted", "0",
+            "--spacing", "5000"};
+        for (String[] kind : new String[][] {{"--plain", "1", "--plain-between", "0.10"}, {"--plain", "0"}}) {
+            List<String> args = new ArrayList<>(List.of(common));
+            args.addAll(List.of(kind));
+            args.addAll(List.of("--out", dir.resolve("g.fa").toString(), "--truth", dir.resolve("t.tsv").toString()));
+            assertThat(new CommandLine(new SatelliteArrays()).execute(args.toArray(String[]::new))).isZero();
+            stria.testutil.Cli.Result scan = stria.testutil.Cli.stria(dir, "scan", "-q", "--tsv", "calls.tsv", "g.fa");
+            assertThat(scan.exit()).as(scan.err()).isZero();
+            CommandLine cl = new CommandLine(new SatelliteScorer());
+            PrintStream out = System.out;
+            ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+            System.setOut(new PrintStream(bytes, true, StandardCharsets.UTF_8));
+            try {
+                assertThat(cl.execute("--truth", dir.resolve("t.tsv").toString(), "--calls",
+                        dir.resolve("calls.tsv").toString(), "--detail")).isZero();
+            } finally {
+                System.setOut(out);
+            }
+            assertThat(bytes.toString(StandardCharsets.UTF_8)).contains("\narray\tpiece\t", "\narray01\t1/1\tsat01\t");
+            SatelliteScorer.Calls calls = SatelliteScorer.readCalls(dir.resolve("calls.tsv"));
+            Result r = SatelliteScorer.score(SatelliteArrays.readTruth(dir.resolve("t.tsv")), calls.calls(), false);
+            assertThat(r.outcomes().get(0).unionCover()).as(String.join(" ", kind)).isGreaterThan(0.9);
+        }
+    }
+
+    @Test
     void truthTableReadsBack(@TempDir Path dir) throws IOException {
         Path t = dir.resolve("t.tsv");
         SatelliteArrays.writeTruth(t, List.of(PLAIN, HOR, LEFT, RIGHT));
