@@ -294,7 +294,7 @@ class BaseStreamProperties {
             assertThat(text(buf, 0, 6)).isEqualTo("ACGTAC");
             assertThatThrownBy(() -> in.read(buf, 6, 1)).isInstanceOf(IllegalArgumentException.class);
             assertThatThrownBy(() -> in.read(buf, 7, 2)).isInstanceOf(IndexOutOfBoundsException.class);
-            assertThatThrownBy(() -> r.stream(new ContigInfo(0, "a", 5))).isInstanceOf(IllegalArgumentException.class);
+            assertThatThrownBy(() -> r.stream(new ContigInfo("a", 5))).isInstanceOf(IllegalArgumentException.class);
             return null;
         });
     }

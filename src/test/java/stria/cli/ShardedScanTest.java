@@ -25,7 +25,7 @@ import stria.testutil.Cli;
  * falls) are scanned with {@code scripts/stria scan --shard K/N} and joined with {@code stria merge}, in the
  * default (imperfect) mode and with {@code --exact}.
  */
-class ShardMergeTest {
+class ShardedScanTest {
     private static final Path DEMO = Cli.projectDir().resolve("testdata/demo.fa.gz");
 
     @TempDir

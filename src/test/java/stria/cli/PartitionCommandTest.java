@@ -1,4 +1,4 @@
-package stria.shard;
+package stria.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
