@@ -13,6 +13,7 @@ import java.util.UUID;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
@@ -24,6 +25,7 @@ import stria.testutil.Cli;
  * {@code .ci/slurm-up.sh}): a job array of shards and a merge job chained with afterok give the same data
  * lines as one scan. Skipped without {@code sbatch}, unless tools are required (CI), where that fails.
  */
+@Tag("tools")
 class SlurmArrayTest {
     private static final long WAIT_MINUTES = 8;
 

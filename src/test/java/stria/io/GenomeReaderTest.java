@@ -24,6 +24,7 @@ import java.util.Map;
 import java.util.Random;
 import java.util.stream.Stream;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -347,6 +348,7 @@ class GenomeReaderTest {
      * its own header and footer; the decompressor of the library then fails with an index error, which
      * must still reach the user as damage.
      */
+    @Tag("slow")
     @Test
     void bgzfBlockSizeFieldTooSmall() throws Exception {
         Path full = FastaFiles.writeBgzf(dir.resolve("full.fa.gz"), bytes(format(SAMPLE)));
@@ -364,6 +366,7 @@ class GenomeReaderTest {
      * file or leaves the genome unchanged (fields no reader uses). The high half of ISIZE is left out: a
      * damaged one makes the library allocate up to 2 GB before it notices.
      */
+    @Tag("slow")
     @Test
     void everyDamageToTheFirstBlocksFieldsIsRefusedOrHarmless() throws Exception {
         Path full = FastaFiles.writeBgzf(dir.resolve("full.fa.gz"), bytes(format(SAMPLE)));
@@ -437,6 +440,7 @@ class GenomeReaderTest {
         refusedAtOpen(p, "g.fa.gz.fai does not match");
     }
 
+    @Tag("slow")
     @Test
     void bgzfWithAnotherFilesGzi() throws Exception {
         Path p = FastaFiles.writeBgzf(dir.resolve("g.fa.gz"), bigGenome(1));

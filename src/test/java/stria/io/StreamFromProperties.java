@@ -27,6 +27,7 @@ import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
+import net.jqwik.api.Tag;
 import net.jqwik.api.lifecycle.AfterContainer;
 import net.jqwik.api.lifecycle.BeforeContainer;
 
@@ -468,6 +469,7 @@ class StreamFromProperties {
      * by far less than the record. With a layout from the pre-pass, a record on one line is entered the
      * same way.
      */
+    @Tag("slow")
     @Example
     void aStreamStartedLateReadsOnlyAroundItsStart() throws IOException {
         Path io = Path.of("/proc/thread-self/io");

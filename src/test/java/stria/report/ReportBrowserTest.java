@@ -20,6 +20,7 @@ import java.util.Set;
 import java.util.concurrent.TimeUnit;
 import javax.imageio.ImageIO;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
@@ -31,6 +32,7 @@ import stria.cli.ReportCommand;
  * charts drawn in their colours, and a page that logs nothing to the console. Screenshots are kept in
  * target/report-screens for a look by eye.
  */
+@Tag("tools")
 class ReportBrowserTest {
     private static Path chromium;
 
