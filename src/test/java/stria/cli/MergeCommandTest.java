@@ -18,9 +18,8 @@ import java.util.zip.GZIPOutputStream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
-import stria.io.ContigInfo;
 import stria.StriaException;
-import stria.cli.MergeCommand;
+import stria.io.ContigInfo;
 import stria.out.ResultHeader;
 
 /** {@code stria merge} on hand-made shard results: the output, and the sets merge must refuse. */

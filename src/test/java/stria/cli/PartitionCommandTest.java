@@ -12,7 +12,6 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
-import stria.cli.PartitionCommand;
 
 class PartitionCommandTest {
     @TempDir

@@ -14,11 +14,9 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
-import stria.testutil.ResultFixtures;
-import stria.io.ContigInfo;
 import stria.StriaException;
-import stria.cli.ReportCommand;
-import stria.out.ResultHeader;
+import stria.io.ContigInfo;
+import stria.testutil.ResultFixtures;
 
 class ReportCommandTest {
     @TempDir

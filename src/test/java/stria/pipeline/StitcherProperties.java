@@ -4,6 +4,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
@@ -11,10 +12,11 @@ import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import stria.io.ContigBytes;
 import stria.repeats.RunList;
+import stria.sim.NaiveRuns;
 
 /**
  * The stitcher alone, against brute force: the runs of each window, computed separately and joined, are the
- * runs of the whole stretch found by direct comparison ({@link #bruteForceRuns}), each once, whole, in sorted
+ * runs of the whole stretch found by direct comparison ({@link NaiveRuns}), each once, whole, in sorted
  * order, whatever the window length. A window drops the complete runs its filter refuses; what it keeps for
  * stitching (runs touching its ends) may come out short of the filter, for the caller to judge, but is always
  * a true run of the stretch.
@@ -23,47 +25,14 @@ class StitcherProperties {
 
     /** Runs of seq[lo, hi) with smallest period at most maxPeriod, by direct comparison, sorted. */
     static List<String> bruteForceRuns(byte[] seq, int lo, int hi, int maxPeriod, int minLength) {
-        List<int[]> out = new ArrayList<>();
-        for (int p = 1; p <= maxPeriod; p++) {
-            int i = lo;
-            while (i + p < hi) {
-                int j = i;
-                while (j + p < hi && isBase(seq[j]) && up(seq[j]) == up(seq[j + p])) {
-                    j++;
-                }
-                if (j - i >= p && smallestPeriod(seq, i, j + p) == p && j + p - i >= minLength) {
-                    out.add(new int[] {i, j + p, p});
-                }
-                i = j + 1;
-            }
-        }
-        out.sort((a, b) -> a[0] != b[0] ? Integer.compare(a[0], b[0])
-                : a[1] != b[1] ? Integer.compare(a[1], b[1]) : Integer.compare(a[2], b[2]));
+        RunList runs = NaiveRuns.find(Arrays.copyOfRange(seq, lo, hi), hi - lo, maxPeriod);
         List<String> s = new ArrayList<>();
-        for (int[] r : out) {
-            s.add(r[0] + "-" + r[1] + "/" + r[2]);
+        for (int i = 0; i < runs.size(); i++) {
+            if (runs.end(i) - runs.start(i) >= minLength) {
+                s.add((runs.start(i) + lo) + "-" + (runs.end(i) + lo) + "/" + runs.period(i));
+            }
         }
         return s;
-    }
-
-    private static boolean isBase(byte b) {
-        return "ACGTacgt".indexOf(b) >= 0;
-    }
-
-    private static int up(byte b) {
-        return Character.toUpperCase(b);
-    }
-
-    private static int smallestPeriod(byte[] seq, int s, int e) {
-        for (int q = 1; ; q++) {
-            boolean periodic = true;
-            for (int i = s + q; i < e && periodic; i++) {
-                periodic = up(seq[i]) == up(seq[i - q]);
-            }
-            if (periodic) {
-                return q;
-            }
-        }
     }
 
     private static List<String> stitched(byte[] seq, WindowPlan plan, int maxPeriod, int minLength) {

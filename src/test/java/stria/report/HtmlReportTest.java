@@ -1,8 +1,5 @@
 package stria.report;
 
-import stria.testutil.ResultFixtures;
-import stria.io.ContigInfo;
-
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.io.ByteArrayOutputStream;
@@ -15,6 +12,8 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import stria.io.ContigInfo;
+import stria.testutil.ResultFixtures;
 
 class HtmlReportTest {
     @TempDir

@@ -12,10 +12,10 @@ import java.util.List;
 import java.util.zip.GZIPOutputStream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import stria.testutil.ResultFixtures;
-import stria.io.ContigInfo;
 import stria.StriaException;
+import stria.io.ContigInfo;
 import stria.out.ResultHeader;
+import stria.testutil.ResultFixtures;
 
 class ResultReaderTest {
     @TempDir

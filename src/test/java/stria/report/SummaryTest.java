@@ -11,10 +11,9 @@ import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import stria.testutil.ResultFixtures;
-import stria.io.Region;
 import stria.io.ContigInfo;
-import stria.out.ResultHeader;
+import stria.io.Region;
+import stria.testutil.ResultFixtures;
 
 class SummaryTest {
 

@@ -1,8 +1,5 @@
 package stria.shard;
 
-import stria.io.Region;
-import stria.io.ContigInfo;
-
 import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.ArrayList;
@@ -13,6 +10,8 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 import net.jqwik.api.constraints.IntRange;
+import stria.io.ContigInfo;
+import stria.io.Region;
 
 class PartitionProperties {
 

@@ -1,13 +1,12 @@
 package stria.shard;
 
-import stria.io.Region;
-import stria.io.ContigInfo;
-
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import stria.io.ContigInfo;
+import stria.io.Region;
 
 class PartitionTest {
     private static final int MB = 1_000_000;

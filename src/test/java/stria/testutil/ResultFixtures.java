@@ -8,8 +8,8 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Random;
-import stria.io.Region;
 import stria.io.ContigInfo;
+import stria.io.Region;
 import stria.out.ResultHeader;
 import stria.score.MotifClass;
 
