@@ -1,7 +1,7 @@
 package stria.pipeline;
 
 import java.util.concurrent.CompletableFuture;
-import java.util.concurrent.ConcurrentLinkedQueue;
+import java.util.concurrent.ConcurrentLinkedDeque;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Semaphore;
@@ -16,8 +16,11 @@ final class WindowRunner {
     private final ExecutorService pool;
     private final int maxPeriod;
     private final WindowRuns.Keep keep;
-    /** One engine workspace per task running at once: borrowed for a window, then given back. */
-    private final ConcurrentLinkedQueue<WindowRuns.Workspace> workspaces = new ConcurrentLinkedQueue<>();
+    /**
+     * One engine workspace per task running at once: borrowed for a window, then given back on top, so the
+     * next window takes the one last used, whose buffers are likeliest still in cache.
+     */
+    private final ConcurrentLinkedDeque<WindowRuns.Workspace> workspaces = new ConcurrentLinkedDeque<>();
 
     WindowRunner(ExecutorService pool, int maxPeriod, WindowRuns.Keep keep) {
         this.pool = pool;
@@ -44,7 +47,7 @@ final class WindowRunner {
             store.fill(we);
             CompletableFuture<WindowRuns> f = w.runs[k];
             pool.execute(() -> {
-                WindowRuns.Workspace space = workspaces.poll();
+                WindowRuns.Workspace space = workspaces.pollFirst();
                 try {
                     f.complete(WindowRuns.compute(store, ws, we, maxPeriod, keep,
                             space != null ? space : (space = new WindowRuns.Workspace())));
@@ -52,7 +55,7 @@ final class WindowRunner {
                     f.completeExceptionally(t);
                 } finally {
                     if (space != null) {
-                        workspaces.add(space);
+                        workspaces.offerFirst(space);
                     }
                 }
             });
