@@ -145,6 +145,7 @@ class ScanCommandTest {
         assertThat(a).isEqualTo(b);
     }
 
+    @Tag("slow")
     @Test
     void helpVersionAndUsageErrors() {
         Cli.Result help = Cli.stria(dir, "scan", "--help");

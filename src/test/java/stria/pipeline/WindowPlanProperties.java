@@ -16,7 +16,7 @@ import net.jqwik.api.constraints.IntRange;
  */
 class WindowPlanProperties {
 
-    @Property(tries = 2000)
+    @Property(tries = 500)
     void windowsCoverTheStretchAndOwnershipPartitionsIt(@ForAll @IntRange(min = 0, max = 5000) int lo,
                                                         @ForAll @IntRange(min = 0, max = 200_000) int length,
                                                         @ForAll @IntRange(min = 1, max = 2000) int maxPeriod,
