@@ -6,4 +6,4 @@ root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 mvn -q -B -DskipTests package >&2
 echo "machine: $(nproc) cores, $(grep -m1 'model name' /proc/cpuinfo | cut -d: -f2 | xargs)"
-exec java -XX:+UseParallelGC -Xmx4g -cp target/stria.jar stria.bench.EngineBench "$@"
+exec java -XX:+UseParallelGC -Xmx4g -cp target/stria.jar:target/stria-tools.jar stria.bench.EngineBench "$@"

@@ -24,7 +24,7 @@ timed() {
 scale_genome() {
   local fa="$1/scale-$2M.fa"
   if [[ ! -s "$fa" ]]; then
-    java -cp target/stria.jar stria.sim.GenomeSimulator --seed 11 --size "$(($2 * 1000000))" --contigs 4 \
+    java -cp target/stria.jar:target/stria-tools.jar stria.sim.GenomeSimulator --seed 11 --size "$(($2 * 1000000))" --contigs 4 \
       --major 0.75 --satellites 1 --satellite-length 400000 --out "$fa" --truth "$1/scale-$2M.truth.tsv" >&2
   fi
   echo "$fa"

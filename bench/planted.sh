@@ -9,10 +9,11 @@ root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 size="${1:-16000000}"
 seed="${2:-11}"
-out="bench/out/planted"
+source bench/lib.sh
+bench_setup
+out="$WORK/planted"
 mkdir -p "$out"
-mvn -q -B -DskipTests package >&2
-java -cp target/stria.jar stria.sim.GenomeSimulator --seed "$seed" --size "$size" --contigs 4 --satellites 3 \
+java -cp target/stria.jar:target/stria-tools.jar stria.sim.GenomeSimulator --seed "$seed" --size "$size" --contigs 4 --satellites 3 \
   --gaps 12 --lower 40 --out "$out/genome.fa.gz" --truth "$out/truth.tsv"
 echo "genome: $size bases, seed $seed, $(($(wc -l < "$out/truth.tsv") - 1)) planted loci, $(nproc) cores"
 # CPU seconds (user + system) as well as wall time: on a shared machine only the former is steady
@@ -23,4 +24,4 @@ awk -v a="$exact" -v b="$imperfect" 'BEGIN {
   split(a, x, " "); split(b, y, " ")
   printf "time: exact-only %.2f s cpu (%.2f s wall), imperfect %.2f s cpu (%.2f s wall), cpu ratio %.2f\n",
     x[1] + x[2], x[3], y[1] + y[2], y[3], (y[1] + y[2]) / (x[1] + x[2]) }'
-java -cp target/stria.jar stria.sim.TruthScorer --truth "$out/truth.tsv" --calls "$out/calls.tsv"
+java -cp target/stria.jar:target/stria-tools.jar stria.sim.TruthScorer --truth "$out/truth.tsv" --calls "$out/calls.tsv"

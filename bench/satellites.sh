@@ -13,7 +13,7 @@ root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 # where stria.sim (generator and scorer) lives; if it moves to the test classes, e.g.
 # SIM_CP="target/test-classes:target/stria.jar"
-SIM_CP="${SIM_CP:-target/stria.jar}"
+SIM_CP="${SIM_CP:-target/stria.jar:target/stria-tools.jar}"
 source bench/lib.sh
 
 max="${1:-3000000}"

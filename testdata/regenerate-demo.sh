@@ -4,5 +4,5 @@
 # Run from the repository root after `mvn -q package -DskipTests`.
 set -euo pipefail
 cd "$(dirname "$0")/.."
-java -cp target/stria.jar stria.sim.GenomeSimulator --seed 1 --size 2000000 --contigs 3 \
+java -cp target/stria.jar:target/stria-tools.jar stria.sim.GenomeSimulator --seed 1 --size 2000000 --contigs 3 \
   --out testdata/demo.fa.gz --truth testdata/demo.truth.tsv

@@ -74,12 +74,12 @@ public final class Main implements Runnable {
     }
 
     private static int onError(Exception ex, CommandLine cl, CommandLine.ParseResult parsed) {
-        boolean debug = Boolean.getBoolean("stria.debug") || parsed.originalArgs().contains("--debug");
+        boolean debug = Boolean.getBoolean("stria.debug") || CommonOptions.debug(cl);
         PrintWriter err = cl.getErr();
         if (ex instanceof StriaException) {
             err.println("stria: " + ex.getMessage());
         } else if (ex instanceof java.io.UncheckedIOException || ex instanceof htsjdk.samtools.util.RuntimeIOException) {
-            err.println("stria: I/O error: " + (ex.getCause() != null ? ex.getCause().getMessage() : ex.getMessage()));
+            err.println("stria: I/O error: " + StriaException.describe(ex));
         } else if (ex.getCause() instanceof OutOfMemoryError) {
             err.println(OUT_OF_MEMORY);
         } else {

@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -12,39 +13,35 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import stria.io.ContigInfo;
 import stria.io.GenomeReader;
-import stria.shard.ContigSpan;
+import stria.io.Region;
+import stria.pipeline.Geometry;
 import stria.shard.Partition;
-import stria.shard.Piece;
 import stria.shard.Shard;
 
 /**
  * {@code stria partition}: shows how {@code scan --shard K/N} would split the input, so that N can be chosen
  * before a job array is submitted. The partition depends only on the names and lengths of the contigs.
  */
-@Command(name = "partition", sortOptions = false, usageHelpAutoWidth = true, mixinStandardHelpOptions = true,
-        versionProvider = Main.Version.class,
+@Command(name = "partition",
         description = {"Show the pieces of the genome each shard of a split scan (scan --shard K/N) covers.",
                 "One line per shard: shard, number of shards, bases, pieces as contig:start-end (1-based, "
                         + "inclusive; '-' for a shard with nothing to scan)."})
 public final class PartitionCommand implements Callable<Integer> {
-    /** Cuts inside a contig fall on multiples of this many bases unless told otherwise. */
-    public static final int DEFAULT_GRAIN = 1_000_000;
-
     @Spec
     CommandSpec spec;
 
     @Option(names = "--shards", paramLabel = "N", required = true, description = "number of shards")
     int shards;
 
-    @Option(names = "--grain", paramLabel = "BASES", defaultValue = "" + DEFAULT_GRAIN,
+    @Option(names = "--grain", paramLabel = "BASES", defaultValue = "" + Geometry.SHARD_GRAIN,
             description = "cut contigs only at multiples of BASES (default: ${DEFAULT-VALUE})")
     int grain;
 
     @Parameters(arity = "1..*", paramLabel = "FASTA", description = "genome files, in the order given to scan")
     List<String> inputs = new ArrayList<>();
 
-    @Option(names = "--debug", description = "print stack traces of errors")
-    boolean debug;
+    @Mixin(name = CommonOptions.NAME)
+    CommonOptions common;
 
     @Override
     public Integer call() {
@@ -54,12 +51,10 @@ public final class PartitionCommand implements Callable<Integer> {
         if (grain < 1) {
             throw new ParameterException(spec.commandLine(), "--grain must be at least 1, not " + grain);
         }
-        List<ContigSpan> genome = new ArrayList<>();
+        List<ContigInfo> genome = new ArrayList<>();
         for (String in : inputs) {
             try (GenomeReader r = GenomeReader.open(in, w -> System.err.println("stria: warning: " + w))) {
-                for (ContigInfo c : r.contigs()) {
-                    genome.add(new ContigSpan(c.name(), c.length()));
-                }
+                genome.addAll(r.contigs());
             }
         }
         print(Partition.of(genome, shards, grain), System.out);
@@ -69,13 +64,13 @@ public final class PartitionCommand implements Callable<Integer> {
     static void print(List<Shard> shards, PrintStream out) {
         StringBuilder sb = new StringBuilder("#shard\tof\tbases\tpieces\n");
         for (Shard s : shards) {
-            sb.append(s.k()).append('\t').append(s.n()).append('\t').append(s.bases()).append('\t');
+            sb.append(s.id().k()).append('\t').append(s.id().n()).append('\t').append(s.bases()).append('\t');
             if (s.pieces().isEmpty()) {
                 sb.append('-');
             }
             for (int i = 0; i < s.pieces().size(); i++) {
-                Piece p = s.pieces().get(i);
-                sb.append(i == 0 ? "" : " ").append(p.toRegionString());
+                Region p = s.pieces().get(i);
+                sb.append(i == 0 ? "" : " ").append(p.toText());
             }
             sb.append('\n');
         }

@@ -3,6 +3,7 @@ package stria.cli;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
@@ -17,7 +18,6 @@ import stria.report.SummaryTsv;
 
 /** {@code stria report}: a summary of finished TSV results, as an HTML page and/or as TSV on stdout. */
 @Command(name = "report",
-        sortOptions = false,
         description = {
                 "Summarise TSV results of one genome: an HTML page with tables and charts, or a TSV summary.",
                 "Several files are read as the parts of one genome's results (shards, regions); they must "
@@ -36,8 +36,8 @@ public final class ReportCommand implements Callable<Integer> {
     @Option(names = "--summary", description = "Print the summary table as TSV on stdout (columns below).")
     boolean summary;
 
-    @Option(names = {"-h", "--help"}, usageHelp = true, description = "Show this help and exit.")
-    boolean help;
+    @Mixin(name = CommonOptions.NAME)
+    CommonOptions common;
 
     @Parameters(arity = "1..*", paramLabel = "RESULTS.tsv",
             description = "TSV results of stria scan or merge (plain, gzip or BGZF; - for stdin).")
@@ -58,7 +58,7 @@ public final class ReportCommand implements Callable<Integer> {
         Summary s = Summary.of(r);
         if (!r.missingShards().isEmpty()) {
             System.err.println("stria report: warning: shards " + r.missingShards() + " of "
-                    + r.shards().get(0).split("/")[1] + " are missing; the report covers only the shards given");
+                    + r.shards().get(0).n() + " are missing; the report covers only the shards given");
         }
         if (html != null) {
             try (AtomicOutputs outs = new AtomicOutputs()) {

@@ -1,40 +1,35 @@
 package stria.cli;
 
-import java.io.OutputStream;
 import java.util.ArrayList;
-import java.util.HashMap;
+import java.util.Arrays;
 import java.util.List;
-import java.util.Map;
 import java.util.concurrent.Callable;
 import java.util.function.Consumer;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
-import stria.StriaException;
-import stria.io.ContigBytes;
-import stria.io.ContigInfo;
-import stria.io.GenomeReader;
 import stria.io.Region;
 import stria.out.AtomicOutputs;
-import stria.out.ResultHeader;
+import stria.out.LocusSink;
+import stria.out.MaskedFastaWriter;
+import stria.out.ResultFormat;
 import stria.out.ResultWriter;
 import stria.out.Tabix;
+import stria.pipeline.Genome;
 import stria.pipeline.GenomeScan;
 import stria.pipeline.Progress;
+import stria.pipeline.ScanOptions;
+import stria.pipeline.ScanPlan;
 import stria.pipeline.ScanSettings;
-import stria.pipeline.ScanUnit;
-import stria.score.Locus;
-import stria.score.ScoreSettings;
-import stria.shard.ContigSpan;
-import stria.shard.Partition;
-import stria.shard.Piece;
-import stria.shard.Shard;
-import stria.out.MaskedFastaWriter;
+import stria.pipeline.Selection;
+import stria.shard.ShardId;
 
-/** {@code stria scan}: the main job. */
-@Command(name = "scan", sortOptions = false, usageHelpAutoWidth = true, mixinStandardHelpOptions = true,
-        versionProvider = Main.Version.class,
+/**
+ * {@code stria scan}, the main job: parses the options, opens the genome, and hands a {@link ScanPlan} and the
+ * writers (a list of {@link LocusSink}s) to {@link GenomeScan}.
+ */
+@Command(name = "scan",
         description = {
             "Scans genomes for tandem repeats and writes one line per locus.",
             "",
@@ -50,19 +45,6 @@ import stria.out.MaskedFastaWriter;
             "",
             "Exit status: 0 success, 1 bad input or I/O error, 2 usage error."})
 public final class ScanCommand implements Callable<Integer> {
-    /** Defaults of the exact mode: every run an annotator would mask, not every AA. */
-    static final int EXACT_MIN_LENGTH = 12;
-    static final double EXACT_MIN_COPIES = 2;
-    static final int DEFAULT_MAX_PERIOD = ScoreSettings.DEFAULT_MAX_PERIOD;
-    /**
-     * Default window: 256,000 bases, or 64 max-periods when that is more (window overlap stays under 4 %),
-     * up to 4,000,000. Chosen by bench/window.sh (README): smaller windows keep the engine's arrays in
-     * cache; below 64 max-periods the overlap costs more than that gains.
-     */
-    static final int DEFAULT_WINDOW = 256_000;
-    static final int DEFAULT_WINDOW_PERIODS = 64;
-    static final int DEFAULT_WINDOW_MAX = 4_000_000;
-
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
@@ -75,27 +57,30 @@ public final class ScanCommand implements Callable<Integer> {
             + "imperfect loci.")
     boolean exact;
 
-    @Option(names = "--min-period", paramLabel = "N", description = "Smallest period reported (default: 1).")
+    @Option(names = "--min-period", paramLabel = "N", description = "Smallest period reported (default: "
+            + ScanOptions.MIN_PERIOD + ").")
     Integer minPeriod;
 
     @Option(names = "--max-period", paramLabel = "N", description = "Largest period reported (default: "
-            + DEFAULT_MAX_PERIOD + "; up to 1,000,000).")
+            + ScanOptions.MAX_PERIOD + "; up to 1,000,000).")
     Integer maxPeriod;
 
     @Option(names = "--min-copies", paramLabel = "X", description = "Smallest copy number (length / period) "
-            + "reported (default: 2 exact, " + ImperfectDefaults.MIN_COPIES + " imperfect).")
+            + "reported (default: " + ScanOptions.EXACT_MIN_COPIES + " exact, " + ScanOptions.IMPERFECT_MIN_COPIES
+            + " imperfect).")
     Double minCopies;
 
     @Option(names = "--min-length", paramLabel = "N", description = "Shortest locus reported, in bases "
-            + "(default: " + EXACT_MIN_LENGTH + " exact, " + ImperfectDefaults.MIN_LENGTH + " imperfect).")
+            + "(default: " + ScanOptions.EXACT_MIN_LENGTH + " exact, " + ScanOptions.IMPERFECT_MIN_LENGTH
+            + " imperfect).")
     Integer minLength;
 
     @Option(names = "--min-purity", paramLabel = "X", description = "Lowest purity (0..1) of an imperfect locus "
-            + "(default: " + ImperfectDefaults.MIN_PURITY + ").")
+            + "(default: " + ScanOptions.IMPERFECT_MIN_PURITY + ").")
     Double minPurity;
 
     @Option(names = "--min-score", paramLabel = "N", description = "Lowest alignment score of an imperfect "
-            + "locus (default: " + ImperfectDefaults.MIN_SCORE + ").")
+            + "locus (default: " + ScanOptions.IMPERFECT_MIN_SCORE + ").")
     Integer minScore;
 
     @Option(names = {"-o", "--bed"}, paramLabel = "FILE", description = "Write BED here (- for standard "
@@ -111,9 +96,10 @@ public final class ScanCommand implements Callable<Integer> {
             + "the .fai (and .gzi) index when present.")
     List<String> regions = new ArrayList<>();
 
-    @Option(names = "--shard", paramLabel = "K/N", description = "Scan only shard K of N of a deterministic, "
-            + "base-balanced split of the input (for cluster job arrays; combine with 'stria merge').")
-    String shard;
+    @Option(names = "--shard", paramLabel = "K/N", converter = ShardIdConverter.class, description = "Scan only "
+            + "shard K of N of a deterministic, base-balanced split of the input (for cluster job arrays; combine "
+            + "with 'stria merge').")
+    ShardId shard;
 
     @Option(names = "--masked", paramLabel = "FILE", description = "Also write the genome with every reported "
             + "locus masked (FASTA, 60 bases a line; .gz gives BGZF that samtools faidx can index).")
@@ -123,7 +109,15 @@ public final class ScanCommand implements Callable<Integer> {
             + "upper case (default); keep: loci in lower case, the rest as in the input; hard: loci as N.")
     MaskStyle maskStyle = MaskStyle.soft;
 
-    enum MaskStyle { soft, keep, hard }
+    enum MaskStyle {
+        soft(MaskedFastaWriter.Mode.SOFT), keep(MaskedFastaWriter.Mode.SOFT_KEEP), hard(MaskedFastaWriter.Mode.HARD);
+
+        final MaskedFastaWriter.Mode mode;
+
+        MaskStyle(MaskedFastaWriter.Mode mode) {
+            this.mode = mode;
+        }
+    }
 
     @Option(names = {"-t", "--threads"}, paramLabel = "N", description = "Worker threads (default: all cores, "
             + "here ${DEFAULT-VALUE}). The output is the same for any value.")
@@ -140,277 +134,103 @@ public final class ScanCommand implements Callable<Integer> {
     @Option(names = {"-q", "--quiet"}, description = "No progress and no warnings on stderr.")
     boolean quiet;
 
-    @Option(names = "--debug", description = "Print stack traces of errors.")
-    boolean debug;
+    @CommandLine.Mixin(name = CommonOptions.NAME)
+    CommonOptions common;
 
     @Override
     public Integer call() {
         ScanSettings settings = settings();
         Consumer<String> warn = quiet ? m -> { } : m -> System.err.println("stria: warning: " + m);
-        List<GenomeReader> readers = new ArrayList<>();
-        try (AtomicOutputs outputs = new AtomicOutputs()) {
-            List<ScanUnit> units = new ArrayList<>();
-            List<ResultHeader.Contig> all = new ArrayList<>();
-            Map<String, String> seen = new HashMap<>();
-            List<ResultHeader.Span> spans = new ArrayList<>();
-            for (String in : inputs) {
-                GenomeReader r = GenomeReader.open(in, warn);
-                readers.add(r);
-                for (ContigInfo c : r.contigs()) {
-                    String prev = seen.put(c.name(), r.displayName());
-                    if (prev != null) {
-                        throw new StriaException("contig name " + c.name() + " appears in both " + prev + " and "
-                                + r.displayName());
-                    }
-                    all.add(new ResultHeader.Contig(c.name(), c.length()));
-                }
-            }
-            units.addAll(units(readers, settings, spans));
-            refuseOutputsOverInputs();
-            String bedPath = bed;
-            if (bedPath == null && tsv == null) {
-                bedPath = "-";
-            }
+        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs()) {
+            ScanPlan plan = ScanPlan.of(genome, selection(genome));
+            AtomicOutputs.refuseInputs(Arrays.asList(bed, tsv, masked), inputs);
+            String bedPath = bed == null && tsv == null ? "-" : bed;
             if ("-".equals(bedPath) && "-".equals(tsv)) {
                 throw new CommandLine.ParameterException(spec.commandLine(),
                         "--bed and --tsv cannot both write to standard output");
             }
-            OutputStream bedOut = bedPath == null ? null : outputs.open(bedPath);
-            OutputStream tsvOut = tsv == null ? null : outputs.open(tsv);
-            if (bedPath != null && !bedPath.equals("-") && AtomicOutputs.isBgzf(bedPath)) {
-                String tbi = bedPath + ".tbi";
-                var tmpIndex = outputs.companion(bedPath, tbi);
-                String bp = bedPath;
-                outputs.afterClose(bedPath, () -> Tabix.indexBed(outputs.tempPath(bp), tmpIndex, bp));
+            List<String> header = plan.header(Main.VERSION, commandText(), settings).lines();
+            List<LocusSink> sinks = new ArrayList<>();
+            if (bedPath != null) {
+                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header));
+                Tabix.indexOnCommit(outputs, bedPath);
             }
-            ResultWriter writer = new ResultWriter(bedOut, bedPath, tsvOut, tsv);
-            MaskedFastaWriter maskWriter = masked == null ? null : new MaskedFastaWriter(outputs.open(masked),
-                    switch (maskStyle) {
-                        case soft -> MaskedFastaWriter.Mode.SOFT;
-                        case keep -> MaskedFastaWriter.Mode.SOFT_KEEP;
-                        case hard -> MaskedFastaWriter.Mode.HARD;
-                    });
-            stria.repeats.RunList maskSpans = new stria.repeats.RunList();
-            String shardText = settings.shardN() > 0 ? settings.shardK() + "/" + settings.shardN() : null;
-            ResultHeader header = new ResultHeader(Main.VERSION, commandText(), settings.describe(), all,
-                    shardText, spans);
-            writer.header(header.lines());
+            if (tsv != null) {
+                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header));
+            }
+            if (masked != null) {
+                sinks.add(new MaskedFastaWriter(outputs.open(masked), maskStyle.mode));
+            }
             boolean showProgress = !quiet && (progress || Progress.stderrIsTerminal());
-            try (Progress p = new Progress(GenomeScan.totalBases(units), showProgress, System.err)) {
-                new GenomeScan(settings, p).run(units, new GenomeScan.Output() {
-                    @Override
-                    public void beginUnit(ScanUnit unit, ContigBytes seq) {
-                        maskSpans.clear();
-                    }
-
-                    @Override
-                    public void locus(ScanUnit unit, Locus locus) {
-                        writer.locus(unit.contig().name(), locus);
-                        if (maskWriter != null) {
-                            maskSpans.add(locus.start(), locus.end(), locus.period());
-                        }
-                    }
-
-                    @Override
-                    public void endUnit(ScanUnit unit, ContigBytes seq) {
-                        if (maskWriter != null) {
-                            int n = maskSpans.size();
-                            int[] starts = new int[n];
-                            int[] ends = new int[n];
-                            for (int i = 0; i < n; i++) {
-                                starts[i] = maskSpans.start(i);
-                                ends[i] = maskSpans.end(i);
-                            }
-                            maskWriter.writeContig(unit.contig().name(), seq, starts, ends, n);
-                        }
-                    }
-                });
-            }
-            writer.flush();
-            if (maskWriter != null) {
-                maskWriter.close();
+            try (Progress p = new Progress(plan.bases(), showProgress, System.err)) {
+                new GenomeScan(settings, p).run(plan, LocusSink.all(sinks));
             }
             outputs.commit();
-        } finally {
-            for (GenomeReader r : readers) {
-                try {
-                    r.close();
-                } catch (RuntimeException ignored) {
-                    // closing a reader cannot lose results
-                }
-            }
         }
         return 0;
     }
 
-    private List<ScanUnit> units(List<GenomeReader> readers, ScanSettings settings, List<ResultHeader.Span> spans) {
-        List<ScanUnit> units = new ArrayList<>();
-        Map<GenomeReader, ScanUnit.Source> sources = new java.util.IdentityHashMap<>();
-        for (GenomeReader r : readers) {
-            sources.put(r, r::stream);
-        }
-        if (!settings.regions().isEmpty()) {
-            List<ContigInfo> flat = new ArrayList<>();
-            List<GenomeReader> owner = new ArrayList<>();
-            for (GenomeReader r : readers) {
-                for (ContigInfo c : r.contigs()) {
-                    flat.add(c);
-                    owner.add(r);
-                }
-            }
-            // regions are scanned in genome order, overlapping ones merged, so output stays sorted and unique
-            List<long[]> ranges = new ArrayList<>();
-            for (String text : settings.regions()) {
-                Region g = parseRegion(text, flat);
-                int ordinal = -1;
-                for (int i = 0; i < flat.size(); i++) {
-                    if (flat.get(i).name().equals(g.contig())) {
-                        ordinal = i;
-                    }
-                }
-                ranges.add(new long[] {ordinal, g.start(), g.end()});
-            }
-            ranges.sort((a, b) -> a[0] != b[0] ? Long.compare(a[0], b[0]) : Long.compare(a[1], b[1]));
-            List<long[]> merged = new ArrayList<>();
-            for (long[] r : ranges) {
-                long[] last = merged.isEmpty() ? null : merged.get(merged.size() - 1);
-                if (last != null && last[0] == r[0] && r[1] <= last[2]) {
-                    last[2] = Math.max(last[2], r[2]);
-                } else {
-                    merged.add(r.clone());
-                }
-            }
-            for (long[] r : merged) {
-                ContigInfo c = flat.get((int) r[0]);
-                if (r[2] > r[1]) {
-                    units.add(new ScanUnit(sources.get(owner.get((int) r[0])), c, (int) r[1], (int) r[2]));
-                    spans.add(new ResultHeader.Span(c.name(), r[1], r[2]));
-                }
-            }
-            return units;
-        }
-        if (settings.shardN() > 0) {
-            List<ShardTarget> flat = new ArrayList<>();
-            List<ContigSpan> spansForPartition = new ArrayList<>();
-            for (GenomeReader r : readers) {
-                for (ContigInfo c : r.contigs()) {
-                    flat.add(new ShardTarget(r, c));
-                    spansForPartition.add(new ContigSpan(c.name(), c.length()));
-                }
-            }
-            Shard mine = Partition.of(spansForPartition, settings.shardN(), settings.grain())
-                    .get(settings.shardK() - 1);
-            Map<String, ShardTarget> byName = new HashMap<>();
-            for (ShardTarget t : flat) {
-                byName.put(t.contig().name(), t);
-            }
-            for (Piece p : mine.pieces()) {
-                ShardTarget t = byName.get(p.contig());
-                units.add(new ScanUnit(sources.get(t.reader()), t.contig(), p.start(), p.end()));
-            }
-            return units;
-        }
-        for (GenomeReader r : readers) {
-            for (ContigInfo c : r.contigs()) {
-                units.add(new ScanUnit(sources.get(r), c, 0, c.length()));
-            }
-        }
-        return units;
+    private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultFormat format,
+                                             List<String> header) {
+        ResultWriter w = new ResultWriter(outputs.open(path), path, format);
+        w.header(header);
+        return w;
     }
 
-    /** An output path that names an input would destroy the genome being read: refuse it up front. */
-    private void refuseOutputsOverInputs() {
-        List<String> outs = new ArrayList<>();
-        for (String o : new String[] {bed, tsv, masked}) {
-            if (o != null && !o.equals("-")) {
-                outs.add(o);
-                outs.add(o + ".tbi");
+    /** What to scan: the regions (parsed against the genome's contigs), the shard, or everything. */
+    private Selection selection(Genome genome) {
+        if (shard != null) {
+            return Selection.shard(shard);
+        }
+        if (regions.isEmpty()) {
+            return Selection.wholeGenome();
+        }
+        List<Region> parsed = new ArrayList<>();
+        for (String text : regions) {
+            try {
+                parsed.add(Region.parse(text, genome.contigs()));
+            } catch (IllegalArgumentException e) {
+                throw new CommandLine.ParameterException(spec.commandLine(), "--region " + text + ": "
+                        + e.getMessage());
             }
         }
-        for (String in : inputs) {
-            if (in.equals("-")) {
-                continue;
-            }
-            java.nio.file.Path ip = java.nio.file.Path.of(in);
-            for (String o : outs) {
-                java.nio.file.Path op = java.nio.file.Path.of(o);
-                boolean same = op.toAbsolutePath().normalize().equals(ip.toAbsolutePath().normalize());
-                try {
-                    same = same || (java.nio.file.Files.exists(op) && java.nio.file.Files.isSameFile(op, ip));
-                } catch (java.io.IOException ignored) {
-                    // cannot tell: the path comparison stands
-                }
-                if (same) {
-                    throw new StriaException("output " + o + " is the input " + in + ": choose another output name");
-                }
-            }
-        }
-    }
-
-    private record ShardTarget(GenomeReader reader, ContigInfo contig) {
-    }
-
-    private Region parseRegion(String text, List<ContigInfo> flat) {
-        try {
-            return Region.parse(text, flat);
-        } catch (IllegalArgumentException e) {
-            throw new CommandLine.ParameterException(spec.commandLine(), "--region " + text + ": " + e.getMessage());
-        }
+        return Selection.regions(parsed);
     }
 
     private String commandText() {
         return String.join(" ", spec.commandLine().getParseResult().originalArgs());
     }
 
-    /** Validates option values (usage errors, exit 2) and builds the settings object. */
+    /** Checks the options (usage errors, exit 2) and builds the settings through {@link ScanOptions}. */
     ScanSettings settings() {
-        int minP = minPeriod == null ? 1 : minPeriod;
-        int maxP = maxPeriod == null ? DEFAULT_MAX_PERIOD : maxPeriod;
-        ScoreSettings base = exact ? null : ImperfectDefaults.settings(maxP);
-        double minC = minCopies != null ? minCopies : exact ? EXACT_MIN_COPIES : base.minCopies();
-        int minL = minLength != null ? minLength : exact ? EXACT_MIN_LENGTH : base.minLength();
-        double minPur = minPurity != null ? minPurity : exact ? 1.0 : base.minPurity();
-        int minS = minScore != null ? minScore : exact ? 0 : base.minScore();
-        require(minP >= 1, "--min-period must be at least 1 (got " + minP + ")");
-        require(maxP >= 1 && maxP <= 1_000_000, "--max-period must be between 1 and 1,000,000 (got " + maxP + ")");
-        require(minP <= maxP, "--min-period " + minP + " is above --max-period " + maxP);
-        require(minC >= 0 && !Double.isNaN(minC), "--min-copies must not be negative (got " + minC + ")");
-        require(minL >= 0, "--min-length must not be negative (got " + minL + ")");
-        require(minPur >= 0 && minPur <= 1, "--min-purity must be between 0 and 1 (got " + minPur + ")");
-        require(threads >= 1 && threads <= 1024, "--threads must be between 1 and 1024 (got " + threads + ")");
-        int win;
-        int minWin = ScanSettings.minWindow(maxP);
-        if (window == null) {
-            win = (int) Math.max(minWin, Math.min(DEFAULT_WINDOW_MAX,
-                    Math.max(DEFAULT_WINDOW, (long) DEFAULT_WINDOW_PERIODS * maxP)));
-        } else {
-            long w = parseSize(window, "--window");
-            require(w >= minWin && w <= 1_000_000_000L, "--window must be between " + minWin
-                    + " (4 x max-period + 8) and 1G (got " + window + ")");
-            win = (int) w;
-        }
-        int k = 0, n = 0;
-        if (shard != null) {
-            String[] f = shard.split("/");
-            require(f.length == 2, "--shard takes K/N, e.g. 3/16 (got " + shard + ")");
-            try {
-                k = Integer.parseInt(f[0].trim());
-                n = Integer.parseInt(f[1].trim());
-            } catch (NumberFormatException e) {
-                require(false, "--shard takes K/N with whole numbers, e.g. 3/16 (got " + shard + ")");
-            }
-            require(n >= 1 && k >= 1 && k <= n, "--shard K/N needs 1 <= K <= N (got " + shard + ")");
-            require(regions.isEmpty(), "--shard and --region cannot be combined");
-        }
+        require(shard == null || regions.isEmpty(), "--shard and --region cannot be combined");
         require(masked == null || (shard == null && regions.isEmpty()),
                 "--masked writes whole genomes: it cannot be combined with --shard or --region");
-        ScoreSettings filters = new ScoreSettings(minP, maxP, minC, minL, minPur, minS);
-        return new ScanSettings(exact, filters, threads, win, List.copyOf(regions), k, n, 1_000_000);
+        try {
+            return new ScanOptions(exact ? ScanSettings.Mode.EXACT : ScanSettings.Mode.IMPERFECT)
+                    .minPeriod(minPeriod).maxPeriod(maxPeriod).minCopies(minCopies).minLength(minLength)
+                    .minPurity(minPurity).minScore(minScore).threads(threads)
+                    .window(window == null ? null : parseSize(window, "--window")).settings();
+        } catch (IllegalArgumentException e) {
+            throw new CommandLine.ParameterException(spec.commandLine(), e.getMessage());
+        }
     }
 
     private void require(boolean ok, String message) {
         if (!ok) {
             throw new CommandLine.ParameterException(spec.commandLine(), message);
+        }
+    }
+
+    /** {@code --shard K/N}: a usage error unless {@code 1 <= K <= N}. */
+    static final class ShardIdConverter implements CommandLine.ITypeConverter<ShardId> {
+        @Override
+        public ShardId convert(String text) {
+            try {
+                return ShardId.parse(text);
+            } catch (IllegalArgumentException e) {
+                throw new CommandLine.TypeConversionException(e.getMessage());
+            }
         }
     }
 

@@ -8,8 +8,11 @@ import java.nio.file.Path;
 
 import htsjdk.samtools.util.BlockCompressedInputStream;
 
-/** How a genome file is stored. Decided from its first bytes, never from its name. */
-enum Compression {
+/**
+ * How a file is stored: plain, gzip or BGZF. Decided from its first bytes, never from its name; genome files
+ * and result files are told apart the same way.
+ */
+public enum Compression {
     PLAIN("plain text"), GZIP("gzip"), BGZF("BGZF");
 
     final String label;
@@ -45,16 +48,21 @@ enum Compression {
     }
 
     static Compression detect(Path path) throws IOException {
-        try (InputStream in = new BufferedInputStream(Files.newInputStream(path), 1 << 16)) {
-            in.mark(64);
-            int b0 = in.read();
-            int b1 = in.read();
-            if (b0 != 0x1f || b1 != 0x8b) {
-                return PLAIN;
-            }
-            in.reset();
-            // a BGZF file is also a valid multi-member gzip file; only the extra field tells them apart
-            return BlockCompressedInputStream.isValidFile(in) ? BGZF : GZIP;
+        try (BufferedInputStream in = new BufferedInputStream(Files.newInputStream(path), 1 << 16)) {
+            return of(in);
         }
+    }
+
+    /** The compression of what {@code in} holds, read from its first bytes; {@code in} is left where it was. */
+    public static Compression of(BufferedInputStream in) throws IOException {
+        in.mark(64);
+        int b0 = in.read();
+        int b1 = in.read();
+        in.reset();
+        if (b0 != 0x1f || b1 != 0x8b) {
+            return PLAIN;
+        }
+        // a BGZF file is also a valid multi-member gzip file; only the extra field tells them apart
+        return BlockCompressedInputStream.isValidFile(in) ? BGZF : GZIP;
     }
 }

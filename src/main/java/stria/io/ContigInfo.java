@@ -1,14 +1,14 @@
 package stria.io;
 
 /**
- * One record of a genome file that has sequence. {@code index} is its position in
- * {@link GenomeReader#contigs()}, which follows file order; records without sequence are not counted,
- * so the index can be used directly as an array slot by later stages.
+ * A contig: its name and its length in bases. Genome files list the records that have sequence
+ * ({@link GenomeReader#contigs()}, in file order); result headers and the shard partition list the contigs of
+ * a whole genome, all inputs in order.
  */
-public record ContigInfo(int index, String name, int length) {
+public record ContigInfo(String name, int length) {
     public ContigInfo {
-        if (index < 0 || length < 1 || name == null || name.isEmpty()) {
-            throw new IllegalArgumentException("bad contig " + index + " " + name + " " + length);
+        if (length < 0 || name == null || name.isEmpty()) {
+            throw new IllegalArgumentException("bad contig " + name + " " + length);
         }
     }
 }

@@ -42,7 +42,8 @@ public final class GenomeReader implements AutoCloseable {
     private final Path spooled;
     private final InputCursor cursor;
     private final RecordTable table;
-    private final int[] record;
+    /** Table slot of each contig, by name (names are unique within a file). */
+    private final Map<String, Integer> record;
     private final List<ContigInfo> contigs;
     /** Whether the table, line layouts included, comes from a .fai rather than from reading the file. */
     private final boolean fromIndex;
@@ -62,7 +63,7 @@ public final class GenomeReader implements AutoCloseable {
                 : detail -> display + " changed while being read (" + detail + ")";
         Map<String, Long> seen = new HashMap<>();
         List<ContigInfo> list = new ArrayList<>();
-        int[] rec = new int[table.size()];
+        Map<String, Integer> rec = new HashMap<>();
         int empty = 0;
         String firstEmpty = null;
         for (int i = 0; i < table.size(); i++) {
@@ -83,8 +84,8 @@ public final class GenomeReader implements AutoCloseable {
                 throw new StriaException(display + ": record " + name + " has " + length
                         + " bases; records longer than 2,147,483,639 bases are not supported");
             }
-            rec[list.size()] = i;
-            list.add(new ContigInfo(list.size(), name, (int) length));
+            rec.put(name, i);
+            list.add(new ContigInfo(name, (int) length));
         }
         if (list.isEmpty()) {
             throw new StriaException(display + ": no record has any sequence");
@@ -222,10 +223,10 @@ public final class GenomeReader implements AutoCloseable {
     }
 
     private RecordStream record(ContigInfo c) {
-        if (c.index() >= contigs.size() || !contigs.get(c.index()).equals(c)) {
+        Integer i = record.get(c.name());
+        if (i == null || table.length(i) != c.length()) {
             throw new IllegalArgumentException("contig " + c + " is not from " + display);
         }
-        int i = record[c.index()];
         return new RecordStream(this, cursor, display, c.name(), c.length(), table.offset(i), table.headerLine(i),
                 table.layout(i), mismatch);
     }

@@ -1,7 +1,12 @@
 package stria.io;
 
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 
+import stria.Intervals;
 import stria.StriaException;
 
 /**
@@ -17,6 +22,50 @@ public record Region(String contig, int start, int end) {
 
     public int length() {
         return end - start;
+    }
+
+    /** As people type regions: {@code contig:start-end}, 1-based, inclusive (the inverse of {@link #parse}). */
+    public String toText() {
+        return contig + ":" + (start + 1) + "-" + end;
+    }
+
+    /**
+     * The union of {@code regions} in genome order: sorted by the contig's place in {@code genome}, then by
+     * start, overlapping and touching regions merged, empty ones dropped.
+     *
+     * @throws IllegalArgumentException when a region names a contig not in {@code genome}
+     */
+    public static List<Region> union(List<Region> regions, List<ContigInfo> genome) {
+        Map<String, Integer> rank = new HashMap<>();
+        for (int i = 0; i < genome.size(); i++) {
+            rank.put(genome.get(i).name(), i);
+        }
+        List<Region> sorted = new ArrayList<>(regions);
+        for (Region r : sorted) {
+            if (!rank.containsKey(r.contig())) {
+                throw new IllegalArgumentException("region " + r + " is not on a contig of the genome");
+            }
+        }
+        sorted.sort(Comparator.<Region>comparingInt(r -> rank.get(r.contig())).thenComparingInt(Region::start));
+        int n = sorted.size();
+        int[] starts = new int[n];
+        int[] ends = new int[n];
+        List<Region> out = new ArrayList<>();
+        for (int a = 0; a < n; ) {
+            String contig = sorted.get(a).contig();
+            int b = a;
+            while (b < n && sorted.get(b).contig().equals(contig)) {
+                starts[b - a] = sorted.get(b).start();
+                ends[b - a] = sorted.get(b).end();
+                b++;
+            }
+            int m = Intervals.union(starts, ends, b - a);
+            for (int i = 0; i < m; i++) {
+                out.add(new Region(contig, starts[i], ends[i]));
+            }
+            a = b;
+        }
+        return out;
     }
 
     /**

@@ -76,7 +76,7 @@ public final class AtomicOutputs implements AutoCloseable {
             OutputStream raw = new BufferedOutputStream(Files.newOutputStream(e.temp), 1 << 16);
             e.stream = isBgzf(path) ? new BlockCompressedOutputStream(raw, (Path) null) : raw;
         } catch (IOException ex) {
-            throw new StriaException("cannot write " + path + ": " + describe(ex));
+            throw StriaException.io("cannot write " + path, ex);
         }
         return e.stream;
     }
@@ -190,14 +190,9 @@ public final class AtomicOutputs implements AutoCloseable {
         }
         try {
             e.stream.close();
-        } catch (IOException ex) {
+        } catch (IOException | htsjdk.samtools.util.RuntimeIOException ex) {
             if (report) {
-                throw new StriaException("cannot write " + e.target + ": " + describe(ex));
-            }
-        } catch (htsjdk.samtools.util.RuntimeIOException ex) {
-            if (report) {
-                throw new StriaException("cannot write " + e.target + ": " + describe(
-                        ex.getCause() instanceof IOException io ? io : new IOException(ex.getMessage())));
+                throw StriaException.io("cannot write " + e.target, ex);
             }
         } finally {
             e.stream = null;
@@ -212,7 +207,7 @@ public final class AtomicOutputs implements AutoCloseable {
                 Files.move(e.temp, e.target, StandardCopyOption.REPLACE_EXISTING);
             }
         } catch (IOException ex) {
-            throw new StriaException("cannot write " + e.target + ": " + describe(ex));
+            throw StriaException.io("cannot write " + e.target, ex);
         }
     }
 
@@ -232,18 +227,37 @@ public final class AtomicOutputs implements AutoCloseable {
         left.forEach(AtomicOutputs::deleteQuietly);
     }
 
-    /** A short, user-facing description of an I/O failure (no stack trace). */
-    public static String describe(IOException ex) {
-        String m = ex.getMessage();
-        if (m != null && m.contains("No space left")) {
-            return "no space left on device";
+    /**
+     * Refuses output paths that name an input (or would, as the index written beside a BGZF output): writing
+     * there would destroy the genome or result being read. Standard streams ({@code -}) are never compared.
+     *
+     * @throws StriaException naming the output and the input
+     */
+    public static void refuseInputs(List<String> outputs, List<String> inputs) {
+        List<String> outs = new ArrayList<>();
+        for (String o : outputs) {
+            if (o != null && !o.equals("-")) {
+                outs.add(o);
+                outs.add(o + ".tbi");
+            }
         }
-        if (ex instanceof java.nio.file.AccessDeniedException) {
-            return "permission denied";
+        for (String in : inputs) {
+            if (in.equals("-")) {
+                continue;
+            }
+            Path ip = Path.of(in);
+            for (String o : outs) {
+                Path op = Path.of(o);
+                boolean same = op.toAbsolutePath().normalize().equals(ip.toAbsolutePath().normalize());
+                try {
+                    same = same || (Files.exists(op) && Files.isSameFile(op, ip));
+                } catch (IOException ignored) {
+                    // cannot tell: the path comparison stands
+                }
+                if (same) {
+                    throw new StriaException("output " + o + " is the input " + in + ": choose another output name");
+                }
+            }
         }
-        if (ex instanceof java.nio.file.NoSuchFileException) {
-            return "no such file or directory";
-        }
-        return m == null ? ex.getClass().getSimpleName() : m;
     }
 }

@@ -1,6 +1,5 @@
 package stria.out;
 
-import java.nio.charset.StandardCharsets;
 import stria.score.Locus;
 
 /**
@@ -62,9 +61,5 @@ public final class LocusFormat {
             sb.append('0');
         }
         sb.append(frac);
-    }
-
-    static byte[] bytes(StringBuilder sb) {
-        return sb.toString().getBytes(StandardCharsets.US_ASCII);
     }
 }

@@ -4,8 +4,12 @@ import java.io.Closeable;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
+import java.util.Arrays;
+import stria.Intervals;
 import stria.StriaException;
 import stria.io.ContigBytes;
+import stria.io.Region;
+import stria.score.Locus;
 
 /**
  * Writes a genome as FASTA with the reported repeats masked, contig by contig in input order.
@@ -14,10 +18,11 @@ import stria.io.ContigBytes;
  * output can be indexed with {@code samtools faidx}. Records carry the contig name only: a description
  * would be copied unchecked from the input and is of no use to a masked copy.
  *
- * <p>{@link #close()} flushes but leaves {@code out} open: the stream belongs to the caller (usually
- * {@link AtomicOutputs}, which closes and renames it on commit).
+ * <p>As a {@link LocusSink} it masks the loci of each stretch, which must be a whole contig, when the stretch
+ * ends. {@link #close()} (and {@link #finish()}) flushes but leaves {@code out} open: the stream belongs to the
+ * caller (usually {@link AtomicOutputs}, which closes and renames it on commit).
  */
-public final class MaskedFastaWriter implements Closeable {
+public final class MaskedFastaWriter implements LocusSink, Closeable {
 
     /** How repeat bases and the other bases are written. */
     public enum Mode {
@@ -49,6 +54,10 @@ public final class MaskedFastaWriter implements Closeable {
     private final int lineWidth;
     private final byte[] buf;
     private int used;
+    /** Loci of the contig being scanned, as a sink. */
+    private int[] lociStarts = new int[1024];
+    private int[] lociEnds = new int[1024];
+    private int loci;
 
     public MaskedFastaWriter(OutputStream out, Mode mode, int lineWidth) {
         if (lineWidth < 1) {
@@ -78,14 +87,16 @@ public final class MaskedFastaWriter implements Closeable {
     public void writeContig(String name, ContigBytes seq, int[] starts, int[] ends, int count) {
         int length = seq.length();
         checkIntervals(name, length, starts, ends, count);
+        int[] maskStarts = Arrays.copyOf(starts, count);
+        int[] maskEnds = Arrays.copyOf(ends, count);
+        int masks = Intervals.union(maskStarts, maskEnds, count);
         put(('>' + name + '\n').getBytes(StandardCharsets.UTF_8));
         byte[] plain = mode == Mode.SOFT ? UPPER : null;
         byte[] whole = seq.array();
         byte[] block = whole != null ? whole : new byte[Math.min(length, BLOCK_LINES * lineWidth)];
         int blockStart = 0;
         int blockEnd = whole != null ? length : 0;
-        int next = 0;
-        int maskedTo = 0; // end of the union of all intervals that start at or before the current base
+        int next = 0; // the first mask that does not end before the current base
         for (int lineStart = 0; lineStart < length; lineStart += lineWidth) {
             int lineEnd = Math.min(length, lineStart + lineWidth);
             if (lineEnd > blockEnd) {
@@ -98,13 +109,12 @@ public final class MaskedFastaWriter implements Closeable {
                 drain();
             }
             for (int i = lineStart; i < lineEnd; i++) {
-                while (next < count && starts[next] <= i) {
-                    maskedTo = Math.max(maskedTo, ends[next]);
+                while (next < masks && maskEnds[next] <= i) {
                     next++;
                 }
                 int b = block[i - blockStart] & 0xff;
                 byte o;
-                if (i < maskedTo) {
+                if (next < masks && maskStarts[next] <= i) {
                     o = mode == Mode.HARD ? (byte) 'N' : LOWER[b];
                 } else {
                     o = plain == null ? (byte) b : plain[b];
@@ -113,6 +123,35 @@ public final class MaskedFastaWriter implements Closeable {
             }
             buf[used++] = '\n';
         }
+    }
+
+    @Override
+    public void begin(Region stretch, ContigBytes seq) {
+        if (stretch.start() != 0 || stretch.end() != seq.length()) {
+            throw new IllegalStateException("a masked genome is written whole, not " + stretch);
+        }
+        loci = 0;
+    }
+
+    @Override
+    public void locus(String contig, Locus l) {
+        if (loci == lociStarts.length) {
+            lociStarts = Arrays.copyOf(lociStarts, 2 * loci);
+            lociEnds = Arrays.copyOf(lociEnds, 2 * loci);
+        }
+        lociStarts[loci] = l.start();
+        lociEnds[loci] = l.end();
+        loci++;
+    }
+
+    @Override
+    public void end(Region stretch, ContigBytes seq) {
+        writeContig(stretch.contig(), seq, lociStarts, lociEnds, loci);
+    }
+
+    @Override
+    public void finish() {
+        close();
     }
 
     private static void checkIntervals(String name, int length, int[] starts, int[] ends, int count) {
@@ -151,7 +190,7 @@ public final class MaskedFastaWriter implements Closeable {
         try {
             out.write(b, 0, n);
         } catch (IOException e) {
-            throw new StriaException("cannot write the masked FASTA: " + AtomicOutputs.describe(e));
+            throw StriaException.io("cannot write the masked FASTA", e);
         }
     }
 
@@ -162,7 +201,7 @@ public final class MaskedFastaWriter implements Closeable {
         try {
             out.flush();
         } catch (IOException e) {
-            throw new StriaException("cannot write the masked FASTA: " + AtomicOutputs.describe(e));
+            throw StriaException.io("cannot write the masked FASTA", e);
         }
     }
 }

@@ -6,6 +6,8 @@ import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.List;
+import stria.io.ContigInfo;
+import stria.io.Region;
 
 /**
  * The {@code #} lines that open every BED and TSV result: tool version, command line, settings, a
@@ -19,14 +21,8 @@ import java.util.List;
  * @param shard       {@code K/N} for the output of one shard, otherwise null
  * @param regions     regions the scan was limited to (0-based, end exclusive), empty for whole genomes
  */
-public record ResultHeader(String version, String command, String settings, List<Contig> contigs, String shard,
-                           List<Span> regions) {
-
-    public record Contig(String name, long length) {
-    }
-
-    public record Span(String contig, long start, long end) {
-    }
+public record ResultHeader(String version, String command, String settings, List<ContigInfo> contigs, String shard,
+                           List<Region> regions) {
 
     public static final String PREFIX_SETTINGS = "#settings: ";
     public static final String PREFIX_INPUT = "#input: ";
@@ -38,7 +34,7 @@ public record ResultHeader(String version, String command, String settings, List
 
     public long totalBases() {
         long t = 0;
-        for (Contig c : contigs) {
+        for (ContigInfo c : contigs) {
             t += c.length();
         }
         return t;
@@ -49,10 +45,10 @@ public record ResultHeader(String version, String command, String settings, List
         return fingerprint(contigs);
     }
 
-    public static String fingerprint(List<Contig> contigs) {
+    public static String fingerprint(List<ContigInfo> contigs) {
         try {
             MessageDigest md = MessageDigest.getInstance("SHA-256");
-            for (Contig c : contigs) {
+            for (ContigInfo c : contigs) {
                 md.update((c.name() + "\t" + c.length() + "\n").getBytes(StandardCharsets.UTF_8));
             }
             return HexFormat.of().formatHex(md.digest()).substring(0, 16);
@@ -72,10 +68,10 @@ public record ResultHeader(String version, String command, String settings, List
         out.add(PREFIX_COMMAND + command);
         out.add(PREFIX_SETTINGS + settings);
         out.add(inputLine());
-        for (Contig c : contigs) {
+        for (ContigInfo c : contigs) {
             out.add(PREFIX_CONTIG + c.name() + " " + c.length());
         }
-        for (Span r : regions) {
+        for (Region r : regions) {
             out.add(PREFIX_REGION + r.contig() + " " + r.start() + " " + r.end());
         }
         if (shard != null) {
@@ -91,8 +87,8 @@ public record ResultHeader(String version, String command, String settings, List
      */
     public static ResultHeader parse(List<String> lines) {
         String version = null, command = "", settings = null, shard = null;
-        List<Contig> contigs = new ArrayList<>();
-        List<Span> regions = new ArrayList<>();
+        List<ContigInfo> contigs = new ArrayList<>();
+        List<Region> regions = new ArrayList<>();
         for (String l : lines) {
             if (l.startsWith(PREFIX_TOOL)) {
                 version = l.substring(PREFIX_TOOL.length()).trim();
@@ -102,10 +98,10 @@ public record ResultHeader(String version, String command, String settings, List
                 settings = l.substring(PREFIX_SETTINGS.length());
             } else if (l.startsWith(PREFIX_CONTIG)) {
                 String[] f = l.substring(PREFIX_CONTIG.length()).split(" ");
-                contigs.add(new Contig(f[0], Long.parseLong(f[1])));
+                contigs.add(new ContigInfo(f[0], Integer.parseInt(f[1])));
             } else if (l.startsWith(PREFIX_REGION)) {
                 String[] f = l.substring(PREFIX_REGION.length()).split(" ");
-                regions.add(new Span(f[0], Long.parseLong(f[1]), Long.parseLong(f[2])));
+                regions.add(new Region(f[0], Integer.parseInt(f[1]), Integer.parseInt(f[2])));
             } else if (l.startsWith(PREFIX_SHARD)) {
                 shard = l.substring(PREFIX_SHARD.length()).trim();
             }

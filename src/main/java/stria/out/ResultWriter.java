@@ -9,93 +9,63 @@ import stria.StriaException;
 import stria.score.Locus;
 
 /**
- * Writes loci as BED and/or TSV, contig by contig, through {@link AtomicOutputs}. Lines are gathered in a
- * buffer and written in large blocks.
+ * Writes loci in one {@link ResultFormat} to a stream (usually one of {@link AtomicOutputs}): the header
+ * first, then one line per locus. Lines are gathered in a buffer and written in large blocks.
  */
-public final class ResultWriter {
-    private final OutputStream bed;
-    private final OutputStream tsv;
-    private final String bedName;
-    private final String tsvName;
-    private final StringBuilder bedBuf = new StringBuilder(1 << 16);
-    private final StringBuilder tsvBuf = new StringBuilder(1 << 16);
-    private long loci;
+public final class ResultWriter implements LocusSink {
+    private static final int BLOCK = 1 << 16;
 
-    /** Either stream may be null when that format is not wanted. */
-    public ResultWriter(OutputStream bed, String bedName, OutputStream tsv, String tsvName) {
-        this.bed = bed;
-        this.tsv = tsv;
-        this.bedName = bedName;
-        this.tsvName = tsvName;
+    private final OutputStream out;
+    private final String name;
+    private final ResultFormat format;
+    private final StringBuilder buf = new StringBuilder(BLOCK);
+
+    /** @param name the output as the user named it, for messages */
+    public ResultWriter(OutputStream out, String name, ResultFormat format) {
+        this.out = out;
+        this.name = name;
+        this.format = format;
     }
 
+    /** Writes the {@code #} lines and, for TSV, the column row. */
     public void header(List<String> lines) {
-        StringBuilder sb = new StringBuilder();
         for (String l : lines) {
-            sb.append(l).append('\n');
+            buf.append(l).append('\n');
         }
-        String head = sb.toString();
-        if (bed != null) {
-            write(bed, bedName, new StringBuilder(head));
+        if (format.columnRow() != null) {
+            buf.append(format.columnRow()).append('\n');
         }
-        if (tsv != null) {
-            write(tsv, tsvName, new StringBuilder(head).append(LocusFormat.TSV_HEADER).append('\n'));
+        write();
+    }
+
+    @Override
+    public void locus(String contig, Locus l) {
+        format.append(buf, contig, l);
+        if (buf.length() > BLOCK) {
+            write();
         }
     }
 
-    public void locus(String chrom, Locus l) {
-        loci++;
-        if (bed != null) {
-            LocusFormat.bed(bedBuf, chrom, l);
-            if (bedBuf.length() > (1 << 16)) {
-                write(bed, bedName, bedBuf);
-            }
-        }
-        if (tsv != null) {
-            LocusFormat.tsv(tsvBuf, chrom, l);
-            if (tsvBuf.length() > (1 << 16)) {
-                write(tsv, tsvName, tsvBuf);
-            }
-        }
-    }
-
-    public long loci() {
-        return loci;
-    }
-
-    public void flush() {
-        if (bed != null) {
-            write(bed, bedName, bedBuf);
-            flush(bed, bedName);
-        }
-        if (tsv != null) {
-            write(tsv, tsvName, tsvBuf);
-            flush(tsv, tsvName);
-        }
-    }
-
-    private static void write(OutputStream out, String name, StringBuilder sb) {
-        try {
-            out.write(sb.toString().getBytes(StandardCharsets.UTF_8));
-        } catch (IOException e) {
-            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(e));
-        } catch (UncheckedIOException e) {
-            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(e.getCause()));
-        } catch (htsjdk.samtools.util.RuntimeIOException e) {
-            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(
-                    e.getCause() instanceof IOException io ? io : new IOException(e.getMessage())));
-        }
-        sb.setLength(0);
-    }
-
-    private static void flush(OutputStream out, String name) {
+    @Override
+    public void finish() {
+        write();
         try {
             out.flush();
-        } catch (IOException e) {
-            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(e));
-        } catch (htsjdk.samtools.util.RuntimeIOException e) {
-            throw new StriaException("cannot write " + name + ": " + AtomicOutputs.describe(
-                    e.getCause() instanceof IOException io ? io : new IOException(e.getMessage())));
+        } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
+            throw failure(e);
         }
+    }
+
+    private void write() {
+        try {
+            out.write(buf.toString().getBytes(StandardCharsets.UTF_8));
+        } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
+            throw failure(e);
+        }
+        buf.setLength(0);
+    }
+
+    private StriaException failure(Exception e) {
+        return StriaException.io("cannot write " + name, e);
     }
 }

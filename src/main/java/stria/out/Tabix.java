@@ -1,10 +1,9 @@
 package stria.out;
 
-import htsjdk.samtools.util.BlockCompressedInputStream;
+import htsjdk.tribble.bed.BEDCodec;
 import htsjdk.tribble.index.IndexFactory;
 import htsjdk.tribble.index.tabix.TabixFormat;
 import htsjdk.tribble.index.tabix.TabixIndex;
-import htsjdk.tribble.bed.BEDCodec;
 import java.io.IOException;
 import java.nio.file.Path;
 import stria.StriaException;
@@ -14,21 +13,24 @@ public final class Tabix {
     private Tabix() {
     }
 
-    public static void indexBed(Path bgzfBed, Path indexOut, String displayName) {
+    /**
+     * When {@code bedPath} is a BGZF output of {@code outputs}, indexes it once it is complete and commits the
+     * index ({@code bedPath.tbi}) with it; does nothing for standard output and plain files.
+     */
+    public static void indexOnCommit(AtomicOutputs outputs, String bedPath) {
+        if (bedPath.equals("-") || !AtomicOutputs.isBgzf(bedPath)) {
+            return;
+        }
+        Path index = outputs.companion(bedPath, bedPath + ".tbi");
+        outputs.afterClose(bedPath, () -> indexBed(outputs.tempPath(bedPath), index, bedPath));
+    }
+
+    static void indexBed(Path bgzfBed, Path indexOut, String displayName) {
         try {
             TabixIndex index = IndexFactory.createTabixIndex(bgzfBed.toFile(), new BEDCodec(), TabixFormat.BED, null);
             index.write(indexOut);
         } catch (RuntimeException | IOException ex) {
             throw new StriaException("cannot index " + displayName + ": " + ex.getMessage());
-        }
-    }
-
-    /** Whether a file starts with a BGZF block (so it is block-gzipped, not plain gzip). */
-    public static boolean isBgzf(Path p) {
-        try (var in = java.nio.file.Files.newInputStream(p)) {
-            return BlockCompressedInputStream.isValidFile(new java.io.BufferedInputStream(in));
-        } catch (IOException ex) {
-            return false;
         }
     }
 }

@@ -4,59 +4,36 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ArrayBlockingQueue;
 import java.util.concurrent.BlockingQueue;
-import java.util.concurrent.CompletableFuture;
-import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
 import stria.StriaException;
-import stria.io.ContigBytes;
-import stria.io.ContigInfo;
-import stria.repeats.RunList;
-import stria.score.ExactLocus;
-import stria.score.Locus;
-import stria.score.LocusCaller;
+import stria.out.LocusSink;
 import stria.score.NeedMoreContextException;
-import stria.score.ScoreSettings;
 
 /**
- * Scans a list of units (whole contigs, regions or shard pieces) in order and hands their loci, in order, to
- * an {@link Output}.
+ * The scan as a library call: the units of a {@link ScanPlan} scanned in order, their loci handed, in order,
+ * to a {@link LocusSink}.
  *
  * <p>Threads: a reader thread reads each unit's stretch (a whole contig, or the context around a region
- * or shard piece, entered mid-record) front to back into a {@link ContigStore} and queues its windows on a
- * fixed pool as soon as their bases are in; the calling thread stitches the windows of each
- * unit in order and scores them in chunks, again on the pool, writing each chunk's loci as it comes. At
- * most {@code 2 threads + 4} windows are in flight and a contig longer than {@link #IN_MEMORY_MAX} (or one
- * window) is kept in a temporary file, not in memory, so memory depends on window length and thread
- * count, not on contig length (the exact runs a unit keeps as seeds, a few per kilobase, are the one part
- * that grows with it).
- * Every decision that shapes the output depends only on the sequence, never on which thread or window did
+ * or shard piece, entered mid-record) front to back into a {@link ContigStore} and starts its windows on a
+ * fixed pool as soon as their bases are in ({@link WindowRunner}); the calling thread stitches the windows of
+ * each unit in order and turns the runs into loci ({@link ScanMode}: exact runs, or imperfect loci scored in
+ * chunks, again on the pool), writing them as they come. At most {@code 2 threads + 4} windows are in flight
+ * and a contig longer than {@link #IN_MEMORY_MAX} (or one window) is kept in a temporary file, not in memory,
+ * so memory depends on window length and thread count, not on contig length (the exact runs a unit keeps as
+ * seeds, a few per kilobase, are the one part that grows with it).
+ *
+ * <p>A unit that is not a whole contig keeps only a context around it ({@link Geometry#context}); when a run
+ * or a locus may reach beyond it ({@link NeedMoreContextException}, the one signal for it), the margin grows,
+ * the context is read anew and the unit computed again.
+ *
+ * <p>Every decision that shapes the output depends only on the sequence, never on which thread or window did
  * the work, so the bytes written are the same for any thread count and window length.
  */
 public final class GenomeScan {
-    /** Receives the results, unit by unit, in order. */
-    public interface Output {
-        /**
-         * {@code seq} holds the bases of the unit and some context around it: the whole contig when the unit
-         * is one. It is readable until {@link #endUnit} returns.
-         */
-        void beginUnit(ScanUnit unit, ContigBytes seq);
-
-        void locus(ScanUnit unit, Locus locus);
-
-        void endUnit(ScanUnit unit, ContigBytes seq);
-    }
-
-    /**
-     * Length of the stretches scored as separate tasks; any value gives the same output. 1 Mi against 2 Mi:
-     * about 2 % more CPU, and less of a task's working data outlives young collections, so peak RSS on the
-     * 256 Mb scale genome fell from 255 to 230 MB (bench/scale.sh genomes; 256 Ki cost 12 % more CPU).
-     */
-    static final int SCORE_CHUNK = 1 << 20;
     /**
      * Longest stretch held in an array rather than a temporary file (or one window, when longer): an
      * assembly of many small contigs then never touches the disk.
@@ -64,15 +41,13 @@ public final class GenomeScan {
     static final int IN_MEMORY_MAX = 4_000_000;
 
     private final ScanSettings settings;
-    private final ScoreSettings filters;
-    private final LocusCaller caller;
+    private final ScanMode mode;
     private final Progress progress;
     private final long initialMargin;
-    private final int scoreChunk;
     private final int inMemoryMax;
 
     public GenomeScan(ScanSettings settings, Progress progress) {
-        this(settings, progress, 65_536 + 8L * settings.filters().maxPeriod(), SCORE_CHUNK,
+        this(settings, progress, Geometry.initialMargin(settings.filters().maxPeriod()), ImperfectMode.SCORE_CHUNK,
                 Math.max(IN_MEMORY_MAX, settings.window()));
     }
 
@@ -81,55 +56,33 @@ public final class GenomeScan {
      * chunks and the longest contig held in memory (tests force all three small).
      */
     GenomeScan(ScanSettings settings, Progress progress, long initialMargin, int scoreChunk, int inMemoryMax) {
-        this.initialMargin = initialMargin;
-        this.scoreChunk = scoreChunk;
-        this.inMemoryMax = inMemoryMax;
         this.settings = settings;
-        this.filters = settings.filters();
-        this.caller = new LocusCaller(filters);
+        this.mode = ScanMode.of(settings, scoreChunk);
         this.progress = progress;
+        this.initialMargin = initialMargin;
+        this.inMemoryMax = inMemoryMax;
     }
 
-    /** Total bases that will be reported on, for progress. */
-    public static long totalBases(List<ScanUnit> units) {
-        long t = 0;
-        for (ScanUnit u : units) {
-            t += u.to() - u.from();
-        }
-        return t;
+    /** Scans every unit of {@code plan}; {@link LocusSink#finish} is called once all are done. */
+    public void run(ScanPlan plan, LocusSink out) {
+        run(plan.units(), out);
     }
 
-    private static final class Work {
-        final ScanUnit unit;
-        final ContigStore seq;
-        final WindowPlan plan;
-        final CompletableFuture<WindowRuns>[] windows;
-        final Throwable error;
-
-        @SuppressWarnings("unchecked")
-        Work(ScanUnit unit, ContigStore seq, WindowPlan plan) {
-            this.unit = unit;
-            this.seq = seq;
-            this.plan = plan;
-            this.windows = new CompletableFuture[plan.count()];
-            for (int k = 0; k < windows.length; k++) {
-                windows[k] = new CompletableFuture<>();
-            }
-            this.error = null;
-        }
-
-        Work(Throwable error) {
-            this.unit = null;
-            this.seq = null;
-            this.plan = null;
-            this.windows = null;
-            this.error = error;
-        }
+    /** What the reader thread hands the calling thread. */
+    private sealed interface Queued {
     }
 
-    private static final Work END = new Work(null);
+    /** A unit whose stretch is being read and whose windows are being computed. */
+    private record Unit(ScanUnit unit, ContigStore store, WindowRunner.Windows windows) implements Queued {
+    }
 
-    public void run(List<ScanUnit> units, Output out) {
+    private record Failed(Throwable error) implements Queued {
+    }
+
+    private record End() implements Queued {
+    }
+
+    void run(List<ScanUnit> units, LocusSink out) {
         int threads = settings.threads();
         AtomicInteger n = new AtomicInteger();
         ThreadFactory tf = r -> {
@@ -139,23 +92,26 @@ public final class GenomeScan {
         };
         ExecutorService pool = Executors.newFixedThreadPool(threads, tf);
         Semaphore permits = new Semaphore(2 * threads + 4);
-        BlockingQueue<Work> queue = new ArrayBlockingQueue<>(2 * threads + 4);
+        BlockingQueue<Queued> queue = new ArrayBlockingQueue<>(2 * threads + 4);
         Stores stores = new Stores();
-        Thread reader = new Thread(() -> produce(units, pool, permits, queue, stores), "stria-reader");
+        WindowRunner runner = new WindowRunner(pool, settings.filters().maxPeriod(), mode::keep);
+        Thread reader = new Thread(() -> produce(units, runner, permits, queue, stores), "stria-reader");
         reader.setDaemon(true);
         reader.start();
         try {
             while (true) {
-                Work w = queue.take();
-                if (w == END) {
+                Queued q = queue.take();
+                if (q instanceof End) {
                     break;
                 }
-                if (w.error != null) {
-                    rethrow(w.error);
+                if (q instanceof Failed f) {
+                    throw unchecked(f.error());
                 }
-                consume(w, pool, permits, out, stores);
-                stores.close(w.seq);
+                Unit u = (Unit) q;
+                consume(u, runner, pool, out, stores);
+                stores.close(u.store());
             }
+            out.finish();
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new StriaException("interrupted");
@@ -180,13 +136,13 @@ public final class GenomeScan {
         private boolean closed;
 
         /**
-         * A store of the stretch a unit's runs and scoring may read: the whole contig, or the context
-         * {@code [lo, hi)} plus the scorer's read pad on each side.
+         * A store of the stretch a unit's runs and loci may read: the whole contig, or the context plus the
+         * mode's read pad on each side.
          */
-        ContigStore open(ScanUnit u, int lo, int hi) {
-            int pad = u.wholeContig() ? 0 : caller.readPad();
-            int origin = Math.max(0, lo - pad);
-            int end = (int) Math.min(u.contig().length(), (long) hi + pad);
+        ContigStore open(ScanUnit u, Range context) {
+            int pad = u.wholeContig() ? 0 : mode.readPad();
+            int origin = Math.max(0, context.lo() - pad);
+            int end = (int) Math.min(u.contig().length(), (long) context.hi() + pad);
             ContigStore st = ContigStore.open(u.contig(), origin, end, u.source().stream(u.contig(), origin),
                     inMemoryMax);
             synchronized (this) {
@@ -213,256 +169,106 @@ public final class GenomeScan {
         }
     }
 
-    private void produce(List<ScanUnit> units, ExecutorService pool, Semaphore permits, BlockingQueue<Work> queue,
+    private void produce(List<ScanUnit> units, WindowRunner runner, Semaphore permits, BlockingQueue<Queued> queue,
                          Stores stores) {
-        Work w = null;
+        WindowRunner.Windows current = null;
         try {
-            int maxPeriod = filters.maxPeriod();
-            WindowRuns.Keep keep = this::keep;
             for (ScanUnit u : units) {
-                int[] range = initialRange(u);
-                ContigStore seq = stores.open(u, range[0], range[1]);
+                Range context = u.wholeContig() ? new Range(0, u.contig().length()) : context(u, initialMargin);
+                ContigStore store = stores.open(u, context);
                 if (!u.wholeContig()) {
                     // the scorer reads a little beyond the windows' stretch
-                    seq.fill(seq.end);
+                    store.fill(store.end);
                 }
-                w = new Work(u, seq, new WindowPlan(range[0], range[1], settings.window(), maxPeriod));
-                queue.put(w);
-                ContigStore s = seq;
-                for (int k = 0; k < w.windows.length; k++) {
-                    permits.acquire();
-                    int ws = w.plan.start(k), we = w.plan.end(k);
-                    s.fill(we);
-                    CompletableFuture<WindowRuns> f = w.windows[k];
-                    pool.execute(() -> {
-                        try {
-                            f.complete(WindowRuns.compute(s, ws, we, maxPeriod, keep));
-                        } catch (Throwable t) {
-                            f.completeExceptionally(t);
-                        }
-                    });
-                }
+                current = runner.windows(plan(context), permits);
+                queue.put(new Unit(u, store, current));
+                runner.start(store, current);
             }
-            queue.put(END);
+            queue.put(new End());
         } catch (InterruptedException e) {
             // the consumer stopped; nothing more to do
         } catch (Throwable t) {
-            if (w != null) {
+            if (current != null) {
                 // bases that cannot be read fail the windows still waiting for them, so the consumer
                 // stops at the first window it cannot have, in order
-                for (CompletableFuture<WindowRuns> f : w.windows) {
-                    f.completeExceptionally(t);
-                }
+                current.fail(t);
             }
             try {
-                queue.put(new Work(t));
+                queue.put(new Failed(t));
             } catch (InterruptedException ignored) {
                 // consumer gone
             }
         }
     }
 
-    /** Context around a unit that is not a whole contig: runs are computed on [lo, hi). */
-    private int[] initialRange(ScanUnit u) {
-        if (u.wholeContig()) {
-            return new int[] {0, u.contig().length()};
-        }
-        return widen(u, initialMargin);
+    private Range context(ScanUnit u, long margin) {
+        return Geometry.context(u.contig().length(), u.from(), u.to(), margin, settings.filters().maxPeriod());
     }
 
-    /**
-     * Runs that start within {@code 2 maxPeriod} of the end of the known stretch may be too short there to be
-     * seen at all, so the margin never goes below that.
-     */
-    private int[] widen(ScanUnit u, long margin) {
-        margin = Math.max(margin, 2L * filters.maxPeriod() + 2);
-        long lo = Math.max(0, u.from() - margin);
-        long hi = Math.min(u.contig().length(), u.to() + margin);
-        return new int[] {(int) lo, (int) hi};
+    private WindowPlan plan(Range context) {
+        return new WindowPlan(context.lo(), context.hi(), settings.window(), settings.filters().maxPeriod());
     }
 
-    private void consume(Work w, ExecutorService pool, Semaphore permits, Output out, Stores stores)
+    private void consume(Unit w, WindowRunner runner, ExecutorService pool, LocusSink out, Stores stores)
             throws InterruptedException {
-        ScanUnit u = w.unit;
-        out.beginUnit(u, w.seq);
-        WindowPlan plan = w.plan;
-        boolean streamExact = settings.exact() && u.wholeContig();
-        RunList kept = new RunList();
-        Stitcher.Sink sink;
-        if (streamExact) {
-            sink = (s, e, p) -> {
-                if (passes(s, e, p)) {
-                    out.locus(u, ExactLocus.of(w.seq, s, e, p));
-                }
-            };
-        } else {
-            sink = collector(u, plan, kept);
-        }
-        Stitcher st = new Stitcher(plan, sink);
-        for (int k = 0; k < plan.count(); k++) {
-            WindowRuns r = get(w.windows[k]);
-            w.windows[k] = null;
-            permits.release();
-            st.accept(k, r);
-            long a = Math.max(plan.ownedFrom(k), u.from());
-            long b = Math.min(plan.ownedTo(k), u.to());
-            if (b > a) {
-                // imperfect mode: finding runs is half the work of a stretch, scoring it the other half
-                progress.add(settings.exact() ? b - a : (b - a) / 2);
-            }
-        }
-        st.finish();
-        if (!streamExact) {
-            long margin = initialMargin;
-            ContigStore seq = w.seq;
-            while (true) {
-                List<Locus> loci = settings.exact() ? exactFromRange(u, seq, plan, kept)
-                        : score(u, seq, plan, kept, pool, out);
-                if (loci != null) {
-                    for (Locus l : loci) {
-                        out.locus(u, l);
-                    }
-                    break;
-                }
-                // the stretch of known runs was too short to decide: widen it, read it and compute again
-                margin *= 4;
-                int[] range = widen(u, margin);
-                if (seq != w.seq) {
-                    stores.close(seq);
-                }
-                seq = stores.open(u, range[0], range[1]);
-                seq.fill(seq.end);
-                plan = new WindowPlan(range[0], range[1], settings.window(), filters.maxPeriod());
-                kept = new RunList();
-                runRange(seq, plan, collector(u, plan, kept), pool);
-            }
-            if (seq != w.seq) {
-                stores.close(seq);
-            }
-        }
-        out.endUnit(u, w.seq);
-    }
-
-    private Stitcher.Sink collector(ScanUnit u, WindowPlan plan, RunList kept) {
-        if (settings.exact()) {
-            return (s, e, p) -> {
-                if (s >= u.from() && s < u.to()) {
-                    kept.add(s, e, p);
-                }
-            };
-        }
-        return (s, e, p) -> {
-            if (caller.isSeed(s, e, p)) {
-                kept.add(s, e, p);
-            }
-        };
-    }
-
-    /** Exact runs of a stretch, or null when one of them may continue past the known stretch. */
-    private List<Locus> exactFromRange(ScanUnit u, ContigBytes seq, WindowPlan plan, RunList runs) {
-        int len = u.contig().length();
-        List<Locus> loci = new ArrayList<>();
-        for (int i = 0; i < runs.size(); i++) {
-            int s = runs.start(i), e = runs.end(i), p = runs.period(i);
-            if ((e == plan.hi() && plan.hi() < len) || (s == plan.lo() && plan.lo() > 0)) {
-                return null;
-            }
-            if (passes(s, e, p)) {
-                loci.add(ExactLocus.of(seq, s, e, p));
-            }
-        }
-        return loci;
-    }
-
-    /**
-     * Imperfect loci of a unit, scored in chunks on the pool. A whole contig never needs more context: its
-     * loci go to {@code out} chunk by chunk as they are ready and the result is an empty list. A part of a
-     * contig is answered whole, or null when more context is needed.
-     */
-    private List<Locus> score(ScanUnit u, ContigBytes seq, WindowPlan plan, RunList seeds, ExecutorService pool,
-                              Output out) throws InterruptedException {
-        boolean stream = u.wholeContig();
-        List<Future<List<Locus>>> parts = new ArrayList<>();
-        List<Integer> sizes = new ArrayList<>();
-        for (long a = u.from(); a < u.to(); a += scoreChunk) {
-            int from = (int) a;
-            int to = (int) Math.min(u.to(), a + scoreChunk);
-            parts.add(pool.submit(() -> caller.call(seq, seeds, plan.lo(), plan.hi(), from, to)));
-            sizes.add(to - from);
-        }
-        List<Locus> all = new ArrayList<>();
-        boolean more = false;
-        for (int i = 0; i < parts.size(); i++) {
-            List<Locus> loci = null;
+        ScanUnit u = w.unit();
+        out.begin(u.region(), w.store());
+        WindowPlan plan = w.windows().plan;
+        ScanMode.Pass pass = mode.pass(u, w.store(), plan, out);
+        w.windows().stitch(pass, k -> found(u, plan, k));
+        ContigStore store = w.store();
+        long margin = initialMargin;
+        while (true) {
             try {
-                loci = parts.get(i).get();
-                parts.set(i, null);
-            } catch (ExecutionException e) {
-                if (e.getCause() instanceof NeedMoreContextException && !stream) {
-                    more = true;
-                    continue;
+                pass.finish(pool, this::solved);
+                break;
+            } catch (NeedMoreContextException e) {
+                if (u.wholeContig()) {
+                    throw e;
                 }
-                rethrow(e.getCause());
             }
-            if (stream) {
-                for (Locus l : loci) {
-                    out.locus(u, l);
-                }
-            } else {
-                all.addAll(loci);
+            // the context was too short to decide: widen it, read it and compute again
+            margin *= Geometry.MARGIN_GROWTH;
+            Range context = context(u, margin);
+            if (store != w.store()) {
+                stores.close(store);
             }
-            progress.add(sizes.get(i) - sizes.get(i) / 2);
+            store = stores.open(u, context);
+            store.fill(store.end);
+            WindowPlan wider = plan(context);
+            pass = mode.pass(u, store, wider, out);
+            WindowRunner.Windows again = runner.windows(wider, null);
+            runner.start(store, again);
+            again.stitch(pass, k -> { });
         }
-        return more ? null : all;
-    }
-
-    private void runRange(ContigBytes seq, WindowPlan plan, Stitcher.Sink sink, ExecutorService pool)
-            throws InterruptedException {
-        List<Future<WindowRuns>> fs = new ArrayList<>();
-        int maxPeriod = filters.maxPeriod();
-        WindowRuns.Keep keep = this::keep;
-        for (int k = 0; k < plan.count(); k++) {
-            int ws = plan.start(k), we = plan.end(k);
-            fs.add(pool.submit(() -> WindowRuns.compute(seq, ws, we, maxPeriod, keep)));
+        if (store != w.store()) {
+            stores.close(store);
         }
-        Stitcher st = new Stitcher(plan, sink);
-        for (int k = 0; k < fs.size(); k++) {
-            try {
-                st.accept(k, fs.get(k).get());
-            } catch (ExecutionException e) {
-                rethrow(e.getCause());
-            }
-        }
-        st.finish();
+        out.end(u.region(), w.store());
     }
 
-    /** The runs a window must keep besides those touching its ends: reported runs, or the scorer's seeds. */
-    private boolean keep(int s, int e, int p) {
-        return settings.exact() ? passes(s, e, p) : caller.isSeed(s, e, p);
-    }
-
-    private boolean passes(int s, int e, int p) {
-        int len = e - s;
-        return p >= filters.minPeriod() && p <= filters.maxPeriod() && len >= filters.minLength()
-                && len >= filters.minCopies() * p - 1e-9;
-    }
-
-    private static WindowRuns get(CompletableFuture<WindowRuns> f) throws InterruptedException {
-        try {
-            return f.get();
-        } catch (ExecutionException e) {
-            rethrow(e.getCause());
-            return null;
+    /** Progress, in one place: window {@code k} of the first pass over a unit has been stitched. */
+    private void found(ScanUnit u, WindowPlan plan, int k) {
+        long a = Math.max(plan.ownedFrom(k), u.from());
+        long b = Math.min(plan.ownedTo(k), u.to());
+        if (b > a) {
+            progress.add(Math.round((b - a) * mode.findShare()));
         }
     }
 
-    private static void rethrow(Throwable t) {
+    /** Progress: the loci of {@code bases} bases have been delivered. */
+    private void solved(long bases) {
+        progress.add(Math.round(bases * (1 - mode.findShare())));
+    }
+
+    /** A failure of a task, rethrown as it was when it is unchecked. */
+    static RuntimeException unchecked(Throwable t) {
         if (t instanceof RuntimeException r) {
-            throw r;
+            return r;
         }
         if (t instanceof Error err) {
             throw err;
         }
-        throw new IllegalStateException(t);
+        return new IllegalStateException(t);
     }
 }

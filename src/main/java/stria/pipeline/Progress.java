@@ -31,6 +31,11 @@ public final class Progress implements AutoCloseable {
         }
     }
 
+    /** Progress that is counted and never shown (for scans run as a library call). */
+    public static Progress none() {
+        return new Progress(1, false, System.err);
+    }
+
     /** Whether standard error is a terminal (Linux: the descriptor points at a tty device). */
     public static boolean stderrIsTerminal() {
         try {

@@ -3,7 +3,7 @@ package stria.pipeline;
 /**
  * Overlapping windows over a stretch {@code [lo, hi)} of a contig, and which run starts each window owns.
  *
- * <p>Neighbouring windows share {@code overlap = 2 maxPeriod + 2} bases. Window k owns the runs that start in
+ * <p>Neighbouring windows share {@code overlap = 2 maxPeriod + 2} bases ({@link Geometry#overlap}). Window k owns the runs that start in
  * {@code [ownedFrom(k), ownedTo(k))}, where the boundary between k-1 and k lies {@code 2 maxPeriod} bases
  * before the end of window k-1. A run owned by window k then starts strictly inside it (so its start is
  * exact) and, if it reaches the end of window k, is seen by window k+1 over at least {@code 2 maxPeriod}
@@ -19,14 +19,14 @@ public final class WindowPlan {
     private final int count;
 
     public WindowPlan(int lo, int hi, int window, int maxPeriod) {
-        if (window < ScanSettings.minWindow(maxPeriod)) {
+        if (window < Geometry.minWindow(maxPeriod)) {
             throw new IllegalArgumentException("window " + window + " is too small for max period " + maxPeriod);
         }
         this.lo = lo;
         this.hi = hi;
         this.window = window;
         this.maxPeriod = maxPeriod;
-        this.overlap = 2 * maxPeriod + 2;
+        this.overlap = Geometry.overlap(maxPeriod);
         int len = hi - lo;
         int step = window - overlap;
         this.count = len <= window ? 1 : 1 + (int) ((len - window + (long) step - 1) / step);
@@ -57,10 +57,10 @@ public final class WindowPlan {
     }
 
     public int ownedFrom(int k) {
-        return k == 0 ? lo : end(k - 1) - 2 * maxPeriod;
+        return k == 0 ? lo : end(k - 1) - Geometry.ownershipLead(maxPeriod);
     }
 
     public int ownedTo(int k) {
-        return k == count - 1 ? hi : end(k) - 2 * maxPeriod;
+        return k == count - 1 ? hi : end(k) - Geometry.ownershipLead(maxPeriod);
     }
 }

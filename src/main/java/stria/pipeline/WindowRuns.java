@@ -7,9 +7,12 @@ import stria.repeats.RunList;
 
 /** The exact runs of one window, in contig coordinates, sorted by start, end, period. */
 final class WindowRuns {
-    private static final ThreadLocal<RunFinder> FINDER = ThreadLocal.withInitial(RunFinder::new);
-    private static final ThreadLocal<byte[][]> CODES = ThreadLocal.withInitial(() -> new byte[1][0]);
-    private static final ThreadLocal<RunList> FOUND = ThreadLocal.withInitial(() -> new RunList(1 << 16));
+    /** The engine and buffers one task works with; a task borrows one, so no two tasks share it. */
+    static final class Workspace {
+        private final RunFinder finder = new RunFinder();
+        private byte[] codes = new byte[0];
+        private final RunList found = new RunList(1 << 16);
+    }
 
     /** Which complete runs a window keeps; runs touching a window end are always kept for stitching. */
     @FunctionalInterface
@@ -32,13 +35,12 @@ final class WindowRuns {
      * kept: a run that does not touch an end is seen whole here, so dropping it loses nothing the filter
      * would have kept, and the window results stay small whatever the run density.
      */
-    static WindowRuns compute(ContigBytes seq, int start, int end, int maxPeriod, Keep keep) {
+    static WindowRuns compute(ContigBytes seq, int start, int end, int maxPeriod, Keep keep, Workspace ws) {
         int len = end - start;
-        byte[][] holder = CODES.get();
-        if (holder[0].length < len) {
-            holder[0] = new byte[len];
+        if (ws.codes.length < len) {
+            ws.codes = new byte[len];
         }
-        byte[] codes = holder[0];
+        byte[] codes = ws.codes;
         byte[] whole = seq.array();
         if (whole != null) {
             Bases.encode(whole, start, len, codes);
@@ -47,9 +49,9 @@ final class WindowRuns {
             seq.copy(start, end, codes, 0);
             Bases.encode(codes, 0, len, codes);
         }
-        RunList local = FOUND.get();
+        RunList local = ws.found;
         local.clear();
-        FINDER.get().find(codes, 0, len, maxPeriod, local);
+        ws.finder.find(codes, 0, len, maxPeriod, local);
         int kept = 0;
         for (int i = 0; i < local.size(); i++) {
             if (local.start(i) == 0 || local.end(i) == len

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
 import stria.out.ResultHeader;
+import stria.shard.ShardId;
 
 /**
  * One self-contained HTML page: styles and charts (inline SVG) are in the file and nothing is fetched,
@@ -74,7 +75,7 @@ public final class HtmlReport {
         private void warnings() {
             List<String> w = new ArrayList<>();
             if (!r.missingShards().isEmpty()) {
-                String n = r.shards().get(0).split("/")[1];
+                int n = r.shards().get(0).n();
                 w.add("Incomplete set of shards: " + r.shards().size() + " of " + n + " present, missing "
                         + r.missingShards() + ". Counts cover only the loci of the shards given.");
             }
@@ -282,7 +283,7 @@ public final class HtmlReport {
             kv(r.commands().size() == 1 ? "command" : "commands",
                     String.join("<br>", r.commands().stream().map(c -> "<code>" + esc(c) + "</code>").toList()));
             if (!r.shards().isEmpty()) {
-                kv("shards", esc(String.join(", ", r.shards())));
+                kv("shards", esc(String.join(", ", r.shards().stream().map(ShardId::toString).toList())));
             }
             if (r.regionLimited()) {
                 List<String> spans = new ArrayList<>();

@@ -1,24 +1,18 @@
 package stria.report;
 
-import java.io.BufferedInputStream;
-import java.io.BufferedReader;
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.HashMap;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
-import java.util.zip.GZIPInputStream;
 import stria.StriaException;
-import stria.out.AtomicOutputs;
+import stria.io.ContigInfo;
+import stria.io.Region;
 import stria.out.ResultHeader;
+import stria.out.ResultInput;
+import stria.shard.ShardId;
 
 /**
  * Reads TSV results for a report. Several files must describe one genome: the same {@code #input}
@@ -44,13 +38,13 @@ public final class ResultReader {
         Map<String, Integer> classIds = new HashMap<>();
         List<String> classNames = new ArrayList<>();
         LinkedHashSet<String> commands = new LinkedHashSet<>();
-        TreeMap<Integer, String> shards = new TreeMap<>();
+        TreeMap<Integer, ShardId> shards = new TreeMap<>();
         Integer shardTotal = null;
         boolean wholeGenome = false;
-        List<ResultHeader.Span> regions = new ArrayList<>();
+        List<Region> regions = new ArrayList<>();
 
         for (String path : paths) {
-            try (BufferedReader in = open(path)) {
+            try (ResultInput in = ResultInput.open(path, StandardCharsets.UTF_8)) {
                 List<String> hashLines = new ArrayList<>();
                 String line;
                 long lineNo = 0;
@@ -72,7 +66,7 @@ public final class ResultReader {
                 if (first == null) {
                     first = h;
                     firstPath = path;
-                    for (ResultHeader.Contig c : h.contigs()) {
+                    for (ContigInfo c : h.contigs()) {
                         contigIndex.put(c.name(), contigIndex.size());
                         loci.add(new ContigLoci());
                     }
@@ -89,13 +83,13 @@ public final class ResultReader {
                 }
                 commands.add(h.command());
                 if (h.shard() != null) {
-                    int[] kn = parseShard(path, h.shard());
-                    if (shardTotal != null && shardTotal != kn[1]) {
+                    ShardId id = parseShard(path, h.shard());
+                    if (shardTotal != null && shardTotal != id.n()) {
                         throw new StriaException(path + ": shard " + h.shard() + " belongs to a split into "
-                                + kn[1] + " parts, other files to a split into " + shardTotal);
+                                + id.n() + " parts, other files to a split into " + shardTotal);
                     }
-                    shardTotal = kn[1];
-                    shards.put(kn[0], h.shard());
+                    shardTotal = id.n();
+                    shards.put(id.k(), id);
                 }
                 if (h.regions().isEmpty()) {
                     wholeGenome = true;
@@ -113,8 +107,6 @@ public final class ResultReader {
                     }
                     readRow(path, lineNo, line, col, first, contigIndex, loci, motifIds, classIds, classNames);
                 }
-            } catch (IOException e) {
-                throw new StriaException("cannot read " + path + ": " + AtomicOutputs.describe(e));
             }
         }
         for (ContigLoci l : loci) {
@@ -133,30 +125,12 @@ public final class ResultReader {
                 List.copyOf(missing), !wholeGenome, scanned, loci, List.copyOf(classNames));
     }
 
-    private static BufferedReader open(String path) throws IOException {
-        InputStream raw = path.equals("-") ? System.in : Files.newInputStream(Path.of(path));
-        BufferedInputStream in = new BufferedInputStream(raw, 1 << 16);
-        in.mark(2);
-        int b1 = in.read();
-        int b2 = in.read();
-        in.reset();
-        // BGZF is a series of gzip members, which GZIPInputStream reads one after the other
-        InputStream text = b1 == 0x1f && b2 == 0x8b ? new GZIPInputStream(in, 1 << 16) : in;
-        return new BufferedReader(new InputStreamReader(text, StandardCharsets.UTF_8), 1 << 16);
-    }
-
-    private static int[] parseShard(String path, String shard) {
-        String[] f = shard.split("/");
+    private static ShardId parseShard(String path, String shard) {
         try {
-            int k = Integer.parseInt(f[0].trim());
-            int n = Integer.parseInt(f[1].trim());
-            if (f.length == 2 && k >= 1 && k <= n) {
-                return new int[] {k, n};
-            }
-        } catch (NumberFormatException | ArrayIndexOutOfBoundsException e) {
-            // reported below
+            return ShardId.parse(shard);
+        } catch (IllegalArgumentException e) {
+            throw new StriaException(path + ": cannot read the #shard line '" + shard + "'");
         }
-        throw new StriaException(path + ": cannot read the #shard line '" + shard + "'");
     }
 
     private static int[] columns(String path, long lineNo, String headerRow) {
@@ -219,52 +193,37 @@ public final class ResultReader {
         }
     }
 
-    private static List<long[]> scannedSpans(ResultHeader h, boolean wholeGenome, List<ResultHeader.Span> regions,
+    /** Per contig, the scanned spans as flattened {@code [start, end)} pairs: whole contigs, or the regions' union. */
+    private static List<long[]> scannedSpans(ResultHeader h, boolean wholeGenome, List<Region> regions,
                                              Map<String, Integer> contigIndex) {
-        List<long[]> out = new ArrayList<>();
-        List<List<long[]>> per = new ArrayList<>();
-        for (ResultHeader.Contig c : h.contigs()) {
-            List<long[]> l = new ArrayList<>();
-            if (wholeGenome) {
-                l.add(new long[] {0, c.length()});
+        List<Region> spans = new ArrayList<>();
+        if (wholeGenome) {
+            for (ContigInfo c : h.contigs()) {
+                spans.add(new Region(c.name(), 0, c.length()));
             }
-            per.add(l);
-        }
-        if (!wholeGenome) {
-            for (ResultHeader.Span r : regions) {
+        } else {
+            for (Region r : regions) {
                 Integer ci = contigIndex.get(r.contig());
                 if (ci != null) {
-                    long len = h.contigs().get(ci).length();
-                    per.get(ci).add(new long[] {Math.max(0, r.start()), Math.min(len, r.end())});
+                    int len = h.contigs().get(ci).length();
+                    spans.add(new Region(r.contig(), Math.min(len, r.start()), Math.min(len, r.end())));
                 }
             }
         }
-        for (List<long[]> l : per) {
-            l.sort(Comparator.comparingLong(a -> a[0]));
-            List<Long> merged = new ArrayList<>();
-            long cs = -1, ce = -1;
-            for (long[] s : l) {
-                if (s[1] <= s[0]) {
-                    continue;
-                }
-                if (cs < 0 || s[0] > ce) {
-                    if (cs >= 0) {
-                        merged.add(cs);
-                        merged.add(ce);
-                    }
-                    cs = s[0];
-                    ce = s[1];
-                } else {
-                    ce = Math.max(ce, s[1]);
-                }
-            }
-            if (cs >= 0) {
-                merged.add(cs);
-                merged.add(ce);
-            }
-            long[] a = new long[merged.size()];
+        List<List<Long>> per = new ArrayList<>();
+        for (int c = 0; c < h.contigs().size(); c++) {
+            per.add(new ArrayList<>());
+        }
+        for (Region r : Region.union(spans, h.contigs())) {
+            List<Long> l = per.get(contigIndex.get(r.contig()));
+            l.add((long) r.start());
+            l.add((long) r.end());
+        }
+        List<long[]> out = new ArrayList<>();
+        for (List<Long> l : per) {
+            long[] a = new long[l.size()];
             for (int i = 0; i < a.length; i++) {
-                a[i] = merged.get(i);
+                a[i] = l.get(i);
             }
             out.add(a);
         }

@@ -2,6 +2,7 @@ package stria.report;
 
 import java.util.List;
 import stria.out.ResultHeader;
+import stria.shard.ShardId;
 
 /**
  * The results of one genome, read from one or more TSV files.
@@ -9,7 +10,7 @@ import stria.out.ResultHeader;
  * @param files        the files as named by the user
  * @param header       header of the first file (contigs, settings, version)
  * @param commands     the {@code #command} line of each file, in file order, without repeats
- * @param shards       {@code K/N} of every shard among the files, sorted by K, without repeats
+ * @param shards       every shard among the files, sorted by K, without repeats
  * @param missingShards shard numbers of {@code 1..N} that none of the files holds (empty when complete)
  * @param regionLimited whether the scan covered only {@code #region} spans rather than whole contigs
  * @param scanned      per contig (header order), the scanned spans as sorted, disjoint
@@ -17,7 +18,7 @@ import stria.out.ResultHeader;
  * @param loci         per contig (header order), the loci, sorted and free of duplicates
  * @param motifClasses motif class names, indexed by the ids stored in {@link ContigLoci}
  */
-public record ResultSet(List<String> files, ResultHeader header, List<String> commands, List<String> shards,
+public record ResultSet(List<String> files, ResultHeader header, List<String> commands, List<ShardId> shards,
                         List<Integer> missingShards, boolean regionLimited, List<long[]> scanned,
                         List<ContigLoci> loci, List<String> motifClasses) {
 

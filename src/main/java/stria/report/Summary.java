@@ -2,6 +2,7 @@ package stria.report;
 
 import java.util.ArrayList;
 import java.util.List;
+import stria.Intervals;
 
 /**
  * Bases scanned, loci and bases in repeats, for the genome and for each contig, split by
@@ -62,39 +63,36 @@ public final class Summary {
 
     static Row contigRow(String name, long scanned, ContigLoci l) {
         int k = PeriodClass.values().length;
+        int n = l.size();
         long[] classLoci = new long[k];
-        long[] classBases = new long[k];
-        long[] runStart = new long[k + 1];
-        long[] runEnd = new long[k + 1];
-        long[] covered = new long[k + 1];
-        java.util.Arrays.fill(runStart, -1);
-        // one sweep over loci sorted by start keeps, per class and for all loci (slot k), the interval of the
-        // union currently being extended
-        for (int i = 0; i < l.size(); i++) {
-            int cls = PeriodClass.of(l.period(i)).ordinal();
-            classLoci[cls]++;
-            extend(runStart, runEnd, covered, cls, l.start(i), l.end(i));
-            extend(runStart, runEnd, covered, k, l.start(i), l.end(i));
+        int[] cls = new int[n];
+        for (int i = 0; i < n; i++) {
+            cls[i] = PeriodClass.of(l.period(i)).ordinal();
+            classLoci[cls[i]]++;
         }
+        // loci are sorted by start, so are the loci of each class: the union of each, and of all (slot k)
+        int[][] starts = new int[k + 1][];
+        int[][] ends = new int[k + 1][];
+        int[] count = new int[k + 1];
         for (int slot = 0; slot <= k; slot++) {
-            if (runStart[slot] >= 0) {
-                covered[slot] += runEnd[slot] - runStart[slot];
-            }
+            int size = slot == k ? n : (int) classLoci[slot];
+            starts[slot] = new int[size];
+            ends[slot] = new int[size];
         }
-        System.arraycopy(covered, 0, classBases, 0, k);
-        return new Row(name, scanned, l.size(), covered[k], classLoci, classBases);
-    }
-
-    private static void extend(long[] runStart, long[] runEnd, long[] covered, int slot, long s, long e) {
-        if (runStart[slot] < 0) {
-            runStart[slot] = s;
-            runEnd[slot] = e;
-        } else if (s > runEnd[slot]) {
-            covered[slot] += runEnd[slot] - runStart[slot];
-            runStart[slot] = s;
-            runEnd[slot] = e;
-        } else if (e > runEnd[slot]) {
-            runEnd[slot] = e;
+        for (int i = 0; i < n; i++) {
+            int c = cls[i];
+            starts[c][count[c]] = l.start(i);
+            ends[c][count[c]++] = l.end(i);
+            starts[k][i] = l.start(i);
+            ends[k][i] = l.end(i);
         }
+        count[k] = n;
+        long[] covered = new long[k + 1];
+        for (int slot = 0; slot <= k; slot++) {
+            int m = Intervals.union(starts[slot], ends[slot], count[slot]);
+            covered[slot] = Intervals.covered(starts[slot], ends[slot], m);
+        }
+        long[] classBases = java.util.Arrays.copyOf(covered, k);
+        return new Row(name, scanned, n, covered[k], classLoci, classBases);
     }
 }

@@ -2,6 +2,8 @@ package stria.shard;
 
 import java.util.ArrayList;
 import java.util.List;
+import stria.io.ContigInfo;
+import stria.io.Region;
 
 /**
  * Splits a genome into shards of nearly equal size, so that a job array of {@code n} tasks finishes at
@@ -26,7 +28,7 @@ public final class Partition {
     private final long total;
     private final int grain;
 
-    private Partition(List<ContigSpan> contigs, int grain) {
+    private Partition(List<ContigInfo> contigs, int grain) {
         this.grain = grain;
         starts = new long[contigs.size() + 1];
         for (int i = 0; i < contigs.size(); i++) {
@@ -40,7 +42,7 @@ public final class Partition {
      *
      * @param grain contigs are cut only at multiples of this many bases from their start
      */
-    public static List<Shard> of(List<ContigSpan> contigs, int n, int grain) {
+    public static List<Shard> of(List<ContigInfo> contigs, int n, int grain) {
         if (n < 1) {
             throw new IllegalArgumentException("number of shards must be at least 1, not " + n);
         }
@@ -51,20 +53,20 @@ public final class Partition {
         long[] cuts = p.cuts(contigs, n);
         List<Shard> shards = new ArrayList<>(n);
         for (int k = 1; k <= n; k++) {
-            shards.add(new Shard(k, n, p.pieces(contigs, cuts[k - 1], cuts[k])));
+            shards.add(new Shard(new ShardId(k, n), p.pieces(contigs, cuts[k - 1], cuts[k])));
         }
         return shards;
     }
 
     /** Genome offsets where shards begin and end: cuts[0] = 0, cuts[n] = total. */
-    private long[] cuts(List<ContigSpan> contigs, int n) {
+    private long[] cuts(List<ContigInfo> contigs, int n) {
         long[] c = new long[n + 1];
         c[n] = total;
         if (total == 0) {
             return c;
         }
         long u = 0;
-        for (ContigSpan s : contigs) {
+        for (ContigInfo s : contigs) {
             u = Math.max(u, Math.min(s.length(), grain));
         }
         long[] lo = new long[n + 1];
@@ -191,8 +193,8 @@ public final class Partition {
     }
 
     /** The contig pieces of genome stretch [from, to). */
-    private List<Piece> pieces(List<ContigSpan> contigs, long from, long to) {
-        List<Piece> out = new ArrayList<>();
+    private List<Region> pieces(List<ContigInfo> contigs, long from, long to) {
+        List<Region> out = new ArrayList<>();
         if (from >= to) {
             return out;
         }
@@ -200,7 +202,7 @@ public final class Partition {
             long s = Math.max(from, starts[i]);
             long e = Math.min(to, starts[i + 1]);
             if (s < e) {
-                out.add(new Piece(contigs.get(i).name(), (int) (s - starts[i]), (int) (e - starts[i])));
+                out.add(new Region(contigs.get(i).name(), (int) (s - starts[i]), (int) (e - starts[i])));
             }
         }
         return out;

@@ -1,23 +1,16 @@
 package stria.shard;
 
-import htsjdk.samtools.util.BlockCompressedInputStream;
-import java.io.BufferedInputStream;
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStream;
-import java.io.InputStreamReader;
 import java.io.OutputStream;
-import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
-import java.util.zip.GZIPInputStream;
 import stria.StriaException;
-import stria.out.AtomicOutputs;
+import stria.io.ContigInfo;
+import stria.out.ResultFormat;
 import stria.out.ResultHeader;
+import stria.out.ResultInput;
 
 /**
  * Joins the results of the shards of one split run into the result a single run would have written.
@@ -30,22 +23,25 @@ import stria.out.ResultHeader;
  */
 public final class ShardMerge {
 
-    public enum Format {
-        BED, TSV
-    }
-
     /** The first line of a TSV result after the {@code #} lines. */
     private static final String TSV_COLUMNS_START = "chrom\t";
 
     /** What the header of one shard result says. */
-    record Part(String file, ResultHeader header, String inputLine, String columns, Format format, int k, int n) {
+    record Part(String file, ResultHeader header, String inputLine, String columns, ResultFormat format, ShardId id) {
+        int k() {
+            return id.k();
+        }
+
+        int n() {
+            return id.n();
+        }
     }
 
     private final List<Part> parts;
-    private final Format format;
-    private final List<ResultHeader.Contig> contigs;
+    private final ResultFormat format;
+    private final List<ContigInfo> contigs;
 
-    private ShardMerge(List<Part> parts, Format format, List<ResultHeader.Contig> contigs) {
+    private ShardMerge(List<Part> parts, ResultFormat format, List<ContigInfo> contigs) {
         this.parts = parts;
         this.format = format;
         this.contigs = contigs;
@@ -55,7 +51,7 @@ public final class ShardMerge {
      * Reads the headers of {@code files} and checks that they are the complete shard set of one run in
      * {@code format}; throws a {@link StriaException} naming the offending files otherwise.
      */
-    public static ShardMerge check(List<String> files, Format format) {
+    public static ShardMerge check(List<String> files, ResultFormat format) {
         if (files.isEmpty()) {
             throw new StriaException("no shard results given");
         }
@@ -77,9 +73,9 @@ public final class ShardMerge {
                     + format.name() + ": merge it with --" + first.format.name().toLowerCase(java.util.Locale.ROOT));
         }
         for (Part p : parts) {
-            if (p.n != first.n) {
-                throw new StriaException(first.file + " is shard " + first.k + "/" + first.n + " but " + p.file
-                        + " is shard " + p.k + "/" + p.n + ": they come from runs split differently");
+            if (p.n() != first.n()) {
+                throw new StriaException(first.file + " is shard " + first.id + " but " + p.file
+                        + " is shard " + p.id + ": they come from runs split differently");
             }
             if (!p.inputLine.equals(first.inputLine)) {
                 throw new StriaException(first.file + " and " + p.file + " were made from different inputs ("
@@ -100,30 +96,26 @@ public final class ShardMerge {
                 throw new StriaException(first.file + " and " + p.file + " have different TSV columns");
             }
         }
-        Part[] byK = new Part[first.n + 1];
+        Part[] byK = new Part[first.n() + 1];
         for (Part p : parts) {
-            if (byK[p.k] != null) {
-                throw new StriaException(byK[p.k].file + " and " + p.file + " are both shard " + p.k + "/" + p.n);
+            if (byK[p.k()] != null) {
+                throw new StriaException(byK[p.k()].file + " and " + p.file + " are both shard " + p.id);
             }
-            byK[p.k] = p;
+            byK[p.k()] = p;
         }
         List<Integer> missing = new ArrayList<>();
-        for (int k = 1; k <= first.n; k++) {
+        for (int k = 1; k <= first.n(); k++) {
             if (byK[k] == null) {
                 missing.add(k);
             }
         }
         if (!missing.isEmpty()) {
             throw new StriaException("incomplete shard set: " + (missing.size() == 1 ? "shard " : "shards ")
-                    + ranges(missing) + " of " + first.n + " missing from " + fileList(files));
+                    + ranges(missing) + " of " + first.n() + " missing from " + fileList(files));
         }
         List<Part> ordered = new ArrayList<>(parts);
         ordered.sort(Comparator.comparingInt(Part::k));
         return new ShardMerge(ordered, format, first.header.contigs());
-    }
-
-    public int shards() {
-        return parts.size();
     }
 
     /**
@@ -141,7 +133,7 @@ public final class ShardMerge {
             for (String l : header(command).lines()) {
                 writeLine(out, l);
             }
-            if (format == Format.TSV) {
+            if (format == ResultFormat.TSV) {
                 writeLine(out, parts.get(0).columns);
             }
             Order order = new Order(contigs);
@@ -149,7 +141,7 @@ public final class ShardMerge {
                 copyData(p, out, order);
             }
         } catch (IOException e) {
-            throw new StriaException("cannot write merged result: " + AtomicOutputs.describe(e));
+            throw StriaException.io("cannot write merged result", e);
         }
     }
 
@@ -165,7 +157,7 @@ public final class ShardMerge {
         private String lastLine = "";
         private String lastFile = "";
 
-        Order(List<ResultHeader.Contig> contigs) {
+        Order(List<ContigInfo> contigs) {
             for (int i = 0; i < contigs.size(); i++) {
                 rank.put(contigs.get(i).name(), i);
             }
@@ -201,8 +193,8 @@ public final class ShardMerge {
         }
     }
 
-    private static void copyData(Part p, OutputStream out, Order order) throws IOException {
-        try (BufferedReader r = open(p.file)) {
+    private static void copyData(Part p, OutputStream out, Order order) {
+        try (ResultInput r = ResultInput.open(p.file, StandardCharsets.ISO_8859_1)) {
             String line;
             boolean inHeader = true;
             while ((line = r.readLine()) != null) {
@@ -211,20 +203,13 @@ public final class ShardMerge {
                         continue;
                     }
                     inHeader = false;
-                    if (p.format == Format.TSV) {
+                    if (p.format == ResultFormat.TSV) {
                         continue; // the column row
                     }
                 }
                 order.check(p.file, line);
                 writeOrFail(out, line);
             }
-        } catch (StriaException e) {
-            throw e;
-        } catch (IOException | RuntimeException e) {
-            // a damaged BGZF part can fail inside the library's decompressor with an index error
-            throw new StriaException("cannot read " + p.file + ": " + message(e));
-        } catch (OutOfMemoryError e) {
-            throw new StriaException("cannot read " + p.file + ": " + HUGE_BLOCK);
         }
     }
 
@@ -232,7 +217,7 @@ public final class ShardMerge {
         try {
             writeLine(out, line);
         } catch (IOException e) {
-            throw new StriaException("cannot write merged result: " + AtomicOutputs.describe(e));
+            throw StriaException.io("cannot write merged result", e);
         }
     }
 
@@ -245,7 +230,7 @@ public final class ShardMerge {
     private static Part readPart(String file, boolean keepContigs) {
         List<String> lines = new ArrayList<>();
         String firstOther = null;
-        try (BufferedReader r = open(file)) {
+        try (ResultInput r = ResultInput.open(file, StandardCharsets.ISO_8859_1)) {
             String line;
             while ((line = r.readLine()) != null) {
                 if (!line.startsWith("#")) {
@@ -254,13 +239,6 @@ public final class ShardMerge {
                 }
                 lines.add(line);
             }
-        } catch (StriaException e) {
-            throw e;
-        } catch (IOException | RuntimeException e) {
-            // a damaged BGZF part can fail inside the library's decompressor with an index error
-            throw new StriaException("cannot read " + file + ": " + message(e));
-        } catch (OutOfMemoryError e) {
-            throw new StriaException("cannot read " + file + ": " + HUGE_BLOCK);
         }
         ResultHeader h;
         try {
@@ -283,69 +261,17 @@ public final class ShardMerge {
         if (inputLine == null || !h.inputLineMatches(lines)) {
             throw new StriaException(file + " has a damaged header: its #input line does not match its #contig lines");
         }
-        String[] kn = h.shard().split("/");
-        int k;
-        int n;
+        ShardId id;
         try {
-            k = Integer.parseInt(kn[0]);
-            n = kn.length == 2 ? Integer.parseInt(kn[1]) : -1;
-        } catch (NumberFormatException e) {
-            k = -1;
-            n = -1;
-        }
-        if (kn.length != 2 || n < 1 || k < 1 || k > n) {
+            id = ShardId.parse(h.shard());
+        } catch (IllegalArgumentException e) {
             throw new StriaException(file + " has a damaged #shard line: " + h.shard());
         }
         boolean tsv = firstOther != null && firstOther.startsWith(TSV_COLUMNS_START);
         if (!keepContigs) {
             h = new ResultHeader(h.version(), h.command(), h.settings(), List.of(), h.shard(), h.regions());
         }
-        return new Part(file, h, inputLine, tsv ? firstOther : null, tsv ? Format.TSV : Format.BED, k, n);
-    }
-
-    /** Plain, gzip or BGZF, told apart by content rather than by name. */
-    static BufferedReader open(String file) throws IOException {
-        InputStream in = new BufferedInputStream(Files.newInputStream(Path.of(file)), 1 << 16);
-        try {
-            if (BlockCompressedInputStream.isValidFile(in)) {
-                in = new BlockCompressedInputStream(in);
-            } else if (isGzip(in)) {
-                in = new GZIPInputStream(in, 1 << 16);
-            }
-        } catch (IOException e) {
-            in.close();
-            throw e;
-        }
-        return new BufferedReader(new InputStreamReader(in, StandardCharsets.ISO_8859_1), 1 << 16);
-    }
-
-    private static boolean isGzip(InputStream in) throws IOException {
-        in.mark(2);
-        int a = in.read();
-        int b = in.read();
-        in.reset();
-        return a == 0x1f && b == 0x8b;
-    }
-
-    /**
-     * A BGZF block whose ISIZE field is damaged makes the library's decompressor allocate up to 2 GB; valid
-     * blocks hold at most 64 KB.
-     */
-    private static final String HUGE_BLOCK = "a compressed block claims more data than memory holds; the file is"
-            + " most likely damaged (check it with 'gzip -t')";
-
-    private static String message(Exception e) {
-        if (e instanceof IOException io) {
-            return AtomicOutputs.describe(io);
-        }
-        if (e instanceof UncheckedIOException u) {
-            return AtomicOutputs.describe(u.getCause());
-        }
-        if (e instanceof IndexOutOfBoundsException) {
-            // the decompressor's index and argument errors name no cause a user could act on
-            return "a compressed block does not decode; the file is damaged";
-        }
-        return e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage();
+        return new Part(file, h, inputLine, tsv ? firstOther : null, tsv ? ResultFormat.TSV : ResultFormat.BED, id);
     }
 
     /** 1, 3, 4, 5, 9 as "1, 3-5, 9". */

@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -19,6 +20,7 @@ import stria.testutil.Cli;
  * windows that force thousands of stitches through a satellite array), BGZF + tabix output that tabix
  * queries like the plain BED, and region scans equal to the matching slice of the whole scan.
  */
+@Tag("slow")
 class DeterminismAndIndexTest {
     @TempDir
     static Path dir;
@@ -70,6 +72,7 @@ class DeterminismAndIndexTest {
         }
     }
 
+    @Tag("tools")
     @Test
     void bgzfBedIsIndexedAndQueriesMatchThePlainBed() throws IOException {
         Cli.needTool("tabix");

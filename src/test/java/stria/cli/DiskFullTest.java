@@ -9,6 +9,7 @@ import java.util.List;
 import java.util.Random;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import stria.testutil.Cli;
@@ -22,6 +23,7 @@ class DiskFullTest {
     @TempDir
     Path dir;
 
+    @Tag("slow")
     @Test
     void aFullDiskIsReportedAndLeavesNothingBehind() throws IOException {
         Path mnt = Files.createDirectory(dir.resolve("tiny"));

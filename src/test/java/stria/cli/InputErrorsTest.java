@@ -21,6 +21,7 @@ import htsjdk.samtools.reference.FastaSequenceIndexCreator;
 import htsjdk.samtools.util.BlockCompressedOutputStream;
 import htsjdk.samtools.util.GZIIndex;
 import org.junit.jupiter.api.Assumptions;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -33,6 +34,7 @@ import stria.testutil.Cli;
  * Bad input, bad options and interruptions as a user meets them: the real command, its exit status, what
  * it prints on stderr and what it leaves on disk.
  */
+@Tag("slow")
 class InputErrorsTest {
     /** The default (imperfect) mode and the exact mode: both must see the same genome whatever its form. */
     private static final List<List<String>> MODES = List.of(List.of(), List.of("--exact"));

@@ -15,6 +15,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.zip.GZIPInputStream;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -25,6 +26,7 @@ import stria.testutil.Cli;
  * {@code scan --masked} end to end on the demo genome: the masked FASTA must follow, base for base, the
  * BED intervals written by the same run; and {@code report} must agree with the same run's TSV.
  */
+@Tag("slow")
 class MaskedScanTest {
     @TempDir
     Path dir;
@@ -106,6 +108,7 @@ class MaskedScanTest {
         }
     }
 
+    @Tag("tools")
     @Test
     void samtoolsReadsARegionOfTheBgzfMaskedGenome() throws IOException {
         Cli.needTool("samtools");

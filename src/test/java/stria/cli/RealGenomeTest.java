@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.zip.GZIPInputStream;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import stria.testutil.Cli;
@@ -19,6 +20,7 @@ import stria.testutil.Cli;
  * and checked to be periodic with the reported motif and period at (at least) the reported purity. This ties
  * our coordinates, motifs and purities to the genome as another program reads it.
  */
+@Tag("tools")
 class RealGenomeTest {
     static final Path PYLORI = Path.of("/usr/share/doc/ragout/examples/H.Pylori/references/SJM180.fasta.gz");
     static final Path COLI = Path.of("/usr/share/doc/bowtie/examples/genomes/NC_008253.fna.gz");

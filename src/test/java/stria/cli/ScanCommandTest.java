@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import stria.io.Bases;
@@ -94,6 +95,7 @@ class ScanCommandTest {
         assertThat(got).isEqualTo(expected);
     }
 
+    @Tag("tools")
     @Test
     void demoGenomeGivesBedThatBedtoolsSortLeavesUnchanged() throws IOException {
         Cli.needTool("bedtools");
@@ -143,6 +145,7 @@ class ScanCommandTest {
         assertThat(a).isEqualTo(b);
     }
 
+    @Tag("slow")
     @Test
     void helpVersionAndUsageErrors() {
         Cli.Result help = Cli.stria(dir, "scan", "--help");

@@ -13,6 +13,7 @@ import java.util.UUID;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Assumptions;
 import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
@@ -24,6 +25,7 @@ import stria.testutil.Cli;
  * {@code .ci/slurm-up.sh}): a job array of shards and a merge job chained with afterok give the same data
  * lines as one scan. Skipped without {@code sbatch}, unless tools are required (CI), where that fails.
  */
+@Tag("tools")
 class SlurmArrayTest {
     private static final long WAIT_MINUTES = 8;
 
@@ -61,13 +63,13 @@ class SlurmArrayTest {
         assertThat(submitted.exit()).as("%s%s%s", submitted.out(), submitted.err(), logs()).isZero();
         assertThat(submitted.out()).contains("array job").contains("merge job");
 
-        byte[] bed = ShardMergeTest.read(dir.resolve("merged.bed.gz"));
-        byte[] tsv = ShardMergeTest.read(dir.resolve("merged.tsv"));
+        byte[] bed = ShardedScanTest.read(dir.resolve("merged.bed.gz"));
+        byte[] tsv = ShardedScanTest.read(dir.resolve("merged.tsv"));
         byte[] singleBed = Files.readAllBytes(dir.resolve("single.bed"));
-        assertThat(ShardMergeTest.dataLines(singleBed)).isNotEmpty();
-        assertThat(ShardMergeTest.dataSection(bed)).isEqualTo(ShardMergeTest.dataSection(singleBed));
-        assertThat(ShardMergeTest.dataSection(tsv))
-                .isEqualTo(ShardMergeTest.dataSection(Files.readAllBytes(dir.resolve("single.tsv"))));
+        assertThat(ShardedScanTest.dataLines(singleBed)).isNotEmpty();
+        assertThat(ShardedScanTest.dataSection(bed)).isEqualTo(ShardedScanTest.dataSection(singleBed));
+        assertThat(ShardedScanTest.dataSection(tsv))
+                .isEqualTo(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve("single.tsv"))));
         assertThat(dir.resolve("merged.bed.gz.tbi")).exists();
         for (int k = 1; k <= 4; k++) {
             assertThat(dir.resolve("work/shard-" + k + ".bed")).exists();
@@ -127,10 +129,10 @@ class SlurmArrayTest {
             Cli.Result single = Cli.stria(dir, "scan", "-q", "--threads", "1", "--bed", name + ".bed", "--tsv",
                     name + ".tsv", dir.resolve(name + ".fa.gz").toString());
             assertThat(single.exit()).as(single.err()).isZero();
-            assertThat(ShardMergeTest.dataSection(ShardMergeTest.read(dir.resolve("results/" + name + ".bed.gz"))))
-                    .as(name).isEqualTo(ShardMergeTest.dataSection(Files.readAllBytes(dir.resolve(name + ".bed"))));
-            assertThat(ShardMergeTest.dataSection(ShardMergeTest.read(dir.resolve("results/" + name + ".tsv.gz"))))
-                    .as(name).isEqualTo(ShardMergeTest.dataSection(Files.readAllBytes(dir.resolve(name + ".tsv"))));
+            assertThat(ShardedScanTest.dataSection(ShardedScanTest.read(dir.resolve("results/" + name + ".bed.gz"))))
+                    .as(name).isEqualTo(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve(name + ".bed"))));
+            assertThat(ShardedScanTest.dataSection(ShardedScanTest.read(dir.resolve("results/" + name + ".tsv.gz"))))
+                    .as(name).isEqualTo(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve(name + ".tsv"))));
             assertThat(dir.resolve("results/" + name + ".bed.gz.tbi")).exists();
         }
     }

@@ -25,6 +25,7 @@ import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
+import net.jqwik.api.Tag;
 import net.jqwik.api.lifecycle.AfterContainer;
 import net.jqwik.api.lifecycle.BeforeContainer;
 
@@ -104,6 +105,7 @@ class BaseStreamProperties {
      * The same with contigs larger than the cursor's buffer and many BGZF blocks, so that every switch
      * between the streams moves the cursor for real: a seek, or decompressing again from the start.
      */
+    @Tag("slow")
     @Example
     void interleavedStreamsOverLargeContigs() {
         Random rnd = new Random(5);
@@ -230,6 +232,7 @@ class BaseStreamProperties {
      * stream started after the bad letter does not see it. The file is larger than the cursor's buffer,
      * so reading the first record goes back to the file.
      */
+    @Tag("slow")
     @Example
     void aLetterDamagedAfterOpeningIsReportedWithItsLine() throws IOException {
         Random rnd = new Random(9);
@@ -294,7 +297,7 @@ class BaseStreamProperties {
             assertThat(text(buf, 0, 6)).isEqualTo("ACGTAC");
             assertThatThrownBy(() -> in.read(buf, 6, 1)).isInstanceOf(IllegalArgumentException.class);
             assertThatThrownBy(() -> in.read(buf, 7, 2)).isInstanceOf(IndexOutOfBoundsException.class);
-            assertThatThrownBy(() -> r.stream(new ContigInfo(0, "a", 5))).isInstanceOf(IllegalArgumentException.class);
+            assertThatThrownBy(() -> r.stream(new ContigInfo("a", 5))).isInstanceOf(IllegalArgumentException.class);
             return null;
         });
     }

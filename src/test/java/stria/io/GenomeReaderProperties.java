@@ -21,6 +21,7 @@ import net.jqwik.api.Combinators;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
+import net.jqwik.api.Tag;
 import net.jqwik.api.constraints.IntRange;
 import net.jqwik.api.constraints.Size;
 import net.jqwik.api.lifecycle.AfterContainer;
@@ -129,6 +130,7 @@ class GenomeReaderProperties {
      * An index made before the file changed is either refused or, when it still describes the file
      * exactly, gives what a fresh pre-pass gives.
      */
+    @Tag("slow")
     @Property(tries = 300)
     void staleFaiNeverGivesADifferentAnswer(@ForAll("fasta") Model model, @ForAll("mutations") List<int[]> mutations,
                                             @ForAll boolean bgzf) throws IOException {

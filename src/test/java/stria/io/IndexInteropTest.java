@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Random;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -24,6 +25,7 @@ import stria.testutil.Cli;
  * Index files made by the tools people use (samtools faidx, bgzip -i) are read as matching, and regions
  * cut the same bases as samtools faidx cuts for the same region text.
  */
+@Tag("tools")
 class IndexInteropTest {
     @TempDir
     Path dir;

@@ -22,7 +22,7 @@ class RegionProperties {
                                 @ForAll @IntRange(min = 0, max = Integer.MAX_VALUE) int a,
                                 @ForAll @IntRange(min = 0, max = Integer.MAX_VALUE) int b,
                                 @ForAll boolean commas, @ForAll boolean openEnd) {
-        List<ContigInfo> genome = List.of(new ContigInfo(0, "c", length));
+        List<ContigInfo> genome = List.of(new ContigInfo("c", length));
         long first = 1 + (long) a % length;
         long last = first + (long) b % (length - first + 1);
         String text = "c:" + grouped(first, commas) + (openEnd ? "-" : "-" + grouped(last, commas));
@@ -35,7 +35,7 @@ class RegionProperties {
     @Property
     void rangesBeyondTheContigAreInputErrors(@ForAll @IntRange(min = 1, max = 1_000_000) int length,
                                              @ForAll @IntRange(min = 1, max = 1_000_000) int beyond) {
-        List<ContigInfo> genome = List.of(new ContigInfo(0, "c", length));
+        List<ContigInfo> genome = List.of(new ContigInfo("c", length));
         assertThatThrownBy(() -> Region.parse("c:1-" + ((long) length + beyond), genome))
                 .isInstanceOf(StriaException.class).hasMessageContaining("outside c");
         assertThatThrownBy(() -> Region.parse("c:" + ((long) length + beyond), genome))

@@ -13,8 +13,8 @@ import org.junit.jupiter.params.provider.ValueSource;
 import stria.StriaException;
 
 class RegionTest {
-    private static final List<ContigInfo> GENOME = List.of(new ContigInfo(0, "chr1", 5000),
-            new ContigInfo(1, "chr2", 3000), new ContigInfo(2, "alt:7", 100), new ContigInfo(3, "alt", 50));
+    private static final List<ContigInfo> GENOME = List.of(new ContigInfo("chr1", 5000),
+            new ContigInfo("chr2", 3000), new ContigInfo("alt:7", 100), new ContigInfo("alt", 50));
 
     @ParameterizedTest
     @CsvSource(delimiter = '|', value = {

@@ -27,6 +27,7 @@ import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
+import net.jqwik.api.Tag;
 import net.jqwik.api.lifecycle.AfterContainer;
 import net.jqwik.api.lifecycle.BeforeContainer;
 
@@ -237,6 +238,7 @@ class StreamFromProperties {
      * the end, with the message loading the whole contig gives. The records are larger than the cursor's
      * buffer, so the changed bytes are read from the file.
      */
+    @Tag("slow")
     @Example
     void aRecordChangedAfterOpeningFailsAsLoadingDoes() throws IOException {
         Random rnd = new Random(13);
@@ -401,6 +403,7 @@ class StreamFromProperties {
      * reading that line alone looks right; only the byte before its start shows that no line starts
      * there. A stream started on any claimed line is refused or gives the file's bases.
      */
+    @Tag("slow")
     @Example
     void aClaimedLineThatEndsWhereAFileLineEndsIsNotEnough() {
         Random rnd = new Random(19);
@@ -468,6 +471,7 @@ class StreamFromProperties {
      * by far less than the record. With a layout from the pre-pass, a record on one line is entered the
      * same way.
      */
+    @Tag("slow")
     @Example
     void aStreamStartedLateReadsOnlyAroundItsStart() throws IOException {
         Path io = Path.of("/proc/thread-self/io");
@@ -560,6 +564,7 @@ class StreamFromProperties {
      * (between CR and LF too), and the line there kept, shorter or longer: the pre-pass notes a layout
      * exactly when the record keeps one, and streams started around the buffer's end give the right bases.
      */
+    @Tag("slow")
     @Example
     void layoutsAcrossTheEndOfABuffer() {
         int buffer = 1 << 20;

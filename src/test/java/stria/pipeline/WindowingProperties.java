@@ -10,7 +10,9 @@ import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import stria.io.Bases;
 import stria.io.ContigBytes;
-import stria.io.ContigInfo;
+import stria.io.Region;
+import stria.out.LocusSink;
+import stria.pipeline.ScanSettings.Mode;
 import stria.repeats.RunFinder;
 import stria.repeats.RunList;
 import stria.score.Locus;
@@ -62,52 +64,44 @@ class WindowingProperties {
         return r;
     }
 
-    static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges) {
+    static List<String> scan(byte[] seq, ScanSettings s, List<Range> ranges) {
         return scan(seq, s, ranges, 1 << 20);
     }
 
-    static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges, long margin) {
-        return scan(seq, s, ranges, margin, GenomeScan.SCORE_CHUNK, s.window(), false);
+    static List<String> scan(byte[] seq, ScanSettings s, List<Range> ranges, long margin) {
+        return scan(seq, s, ranges, margin, ImperfectMode.SCORE_CHUNK, s.window(), false);
     }
 
     /**
      * @param inMemoryMax longest contig held in memory; longer ones go through a temporary file
      * @param full        whole loci (every field) instead of start-end/period
      */
-    static List<String> scan(byte[] seq, ScanSettings s, List<int[]> ranges, long margin, int scoreChunk,
+    static List<String> scan(byte[] seq, ScanSettings s, List<Range> ranges, long margin, int scoreChunk,
                              int inMemoryMax, boolean full) {
-        ContigInfo c = new ContigInfo(0, "c", seq.length);
+        Genome genome = Genome.of(List.of("c"), List.of(seq));
         List<ScanUnit> units = new ArrayList<>();
-        ScanUnit.Source src = ScanUnit.Source.of(x -> seq);
-        for (int[] r : ranges) {
-            units.add(new ScanUnit(src, c, r[0], r[1]));
+        for (Range r : ranges) {
+            units.add(genome.unit("c", r.lo(), r.hi()));
         }
         List<String> out = new ArrayList<>();
-        try (Progress p = new Progress(1, false, System.err)) {
-            new GenomeScan(s, p, margin, scoreChunk, inMemoryMax).run(units, new GenomeScan.Output() {
-                @Override
-                public void beginUnit(ScanUnit unit, ContigBytes q) {
-                }
+        new GenomeScan(s, Progress.none(), margin, scoreChunk, inMemoryMax).run(units, new LocusSink() {
+            @Override
+            public void locus(String contig, Locus l) {
+                out.add(full ? l.toString() : l.start() + "-" + l.end() + "/" + l.period());
+            }
 
-                @Override
-                public void locus(ScanUnit unit, Locus l) {
-                    out.add(full ? l.toString() : l.start() + "-" + l.end() + "/" + l.period());
-                }
-
-                @Override
-                public void endUnit(ScanUnit unit, ContigBytes q) {
-                    byte[] part = new byte[unit.to() - unit.from()];
-                    q.copy(unit.from(), unit.to(), part, 0);
-                    assertThat(part).isEqualTo(java.util.Arrays.copyOfRange(seq, unit.from(), unit.to()));
-                }
-            });
-        }
+            @Override
+            public void end(Region stretch, ContigBytes q) {
+                byte[] part = new byte[stretch.length()];
+                q.copy(stretch.start(), stretch.end(), part, 0);
+                assertThat(part).isEqualTo(java.util.Arrays.copyOfRange(seq, stretch.start(), stretch.end()));
+            }
+        });
         return out;
     }
 
     static ScanSettings exact(int maxPeriod, int window, int threads) {
-        return new ScanSettings(true, new ScoreSettings(1, maxPeriod, 0, 0, 0, 0), threads, window, List.of(), 0, 0,
-                1_000_000);
+        return new ScanSettings(Mode.EXACT, new ScoreSettings(1, maxPeriod, 0, 0, 0, 0), threads, window);
     }
 
     @Property(tries = 40)
@@ -120,8 +114,8 @@ class WindowingProperties {
         for (int i = 0; i < truth.size(); i++) {
             expected.add(truth.start(i) + "-" + truth.end(i) + "/" + truth.period(i));
         }
-        int window = ScanSettings.minWindow(maxPeriod) + extra % 500;
-        List<String> got = scan(seq, exact(maxPeriod, window, threads), List.of(new int[] {0, seq.length}));
+        int window = Geometry.minWindow(maxPeriod) + extra % 500;
+        List<String> got = scan(seq, exact(maxPeriod, window, threads), List.of(new Range(0, seq.length)));
         assertThat(got).isEqualTo(expected);
     }
 
@@ -140,9 +134,9 @@ class WindowingProperties {
                 expected.add(truth.start(i) + "-" + truth.end(i) + "/" + truth.period(i));
             }
         }
-        ScanSettings s = new ScanSettings(true, new ScoreSettings(1, maxPeriod, minCopies, minLength, 0, 0), threads,
-                ScanSettings.minWindow(maxPeriod) + (int) Math.floorMod(seed, 300L), List.of(), 0, 0, 1_000_000);
-        assertThat(scan(seq, s, List.of(new int[] {0, seq.length}))).isEqualTo(expected);
+        ScanSettings s = new ScanSettings(Mode.EXACT, new ScoreSettings(1, maxPeriod, minCopies, minLength, 0, 0),
+                threads, Geometry.minWindow(maxPeriod) + (int) Math.floorMod(seed, 300L));
+        assertThat(scan(seq, s, List.of(new Range(0, seq.length)))).isEqualTo(expected);
     }
 
     @Property(tries = 40)
@@ -151,9 +145,9 @@ class WindowingProperties {
                                                   @ForAll @IntRange(min = 1, max = 6) int pieces,
                                                   @ForAll @IntRange(min = 1, max = 300) int margin) {
         byte[] seq = genome(seed, 5000, maxPeriod);
-        ScanSettings s = exact(maxPeriod, ScanSettings.minWindow(maxPeriod) + 7, 2);
-        List<String> whole = scan(seq, s, List.of(new int[] {0, seq.length}));
-        List<int[]> ranges = cuts(seed, seq.length, pieces);
+        ScanSettings s = exact(maxPeriod, Geometry.minWindow(maxPeriod) + 7, 2);
+        List<String> whole = scan(seq, s, List.of(new Range(0, seq.length)));
+        List<Range> ranges = cuts(seed, seq.length, pieces);
         assertThat(scan(seq, s, ranges, margin)).isEqualTo(whole);
     }
 
@@ -171,24 +165,23 @@ class WindowingProperties {
     }
 
     /** Up to {@code pieces} consecutive stretches covering {@code [0, length)}, cut at random. */
-    static List<int[]> cuts(long seed, int length, int pieces) {
+    static List<Range> cuts(long seed, int length, int pieces) {
         Random rnd = new Random(seed);
-        List<int[]> ranges = new ArrayList<>();
+        List<Range> ranges = new ArrayList<>();
         int at = 0;
         for (int k = 1; k < pieces; k++) {
             int cut = at + rnd.nextInt(Math.max(1, length - at));
             if (cut > at) {
-                ranges.add(new int[] {at, cut});
+                ranges.add(new Range(at, cut));
                 at = cut;
             }
         }
-        ranges.add(new int[] {at, length});
+        ranges.add(new Range(at, length));
         return ranges;
     }
 
     static ScanSettings imperfect(int maxPeriod, int window, int threads) {
-        return new ScanSettings(false, new ScoreSettings(1, maxPeriod, 2, 12, 0.7, 36), threads, window, List.of(), 0,
-                0, 1_000_000);
+        return new ScanSettings(Mode.IMPERFECT, new ScoreSettings(1, maxPeriod, 2, 12, 0.7, 36), threads, window);
     }
 
     /**
@@ -202,10 +195,10 @@ class WindowingProperties {
             @ForAll @IntRange(min = 64, max = 3000) int chunk, @ForAll @IntRange(min = 1, max = 3) int threads) {
         byte[] seq = genome(seed, 30_000, maxPeriod);
         plantImperfect(seq, seed, maxPeriod);
-        List<int[]> whole = List.of(new int[] {0, seq.length});
+        List<Range> whole = List.of(new Range(0, seq.length));
         List<String> reference = scan(seq, imperfect(maxPeriod, 1 << 20, 1), whole, 1 << 20, 1 << 30, 1 << 30,
                 true);
-        int window = ScanSettings.minWindow(maxPeriod) + (int) Math.floorMod(seed, 2000L);
+        int window = Geometry.minWindow(maxPeriod) + (int) Math.floorMod(seed, 2000L);
         List<String> got = scan(seq, imperfect(maxPeriod, window, threads), whole, 1 << 20, chunk, 0, true);
         assertThat(got).isNotEmpty().isEqualTo(reference);
     }
@@ -216,9 +209,9 @@ class WindowingProperties {
             @ForAll long seed, @ForAll @IntRange(min = 2, max = 40) int maxPeriod,
             @ForAll @IntRange(min = 1, max = 5) int pieces, @ForAll @IntRange(min = 1, max = 2000) int margin) {
         byte[] seq = genome(seed, 20_000, maxPeriod);
-        ScanSettings s = imperfect(maxPeriod, ScanSettings.minWindow(maxPeriod) + 300, 2);
-        List<String> whole = scan(seq, s, List.of(new int[] {0, seq.length}), 1 << 20, 1 << 30, 1 << 30, true);
-        List<int[]> ranges = cuts(seed, seq.length, pieces);
+        ScanSettings s = imperfect(maxPeriod, Geometry.minWindow(maxPeriod) + 300, 2);
+        List<String> whole = scan(seq, s, List.of(new Range(0, seq.length)), 1 << 20, 1 << 30, 1 << 30, true);
+        List<Range> ranges = cuts(seed, seq.length, pieces);
         assertThat(scan(seq, s, ranges, margin, 500 + margin, 0, true)).isEqualTo(whole);
     }
 }

@@ -6,6 +6,7 @@ import java.util.Arrays;
 import java.util.Random;
 import java.util.concurrent.TimeUnit;
 
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 
@@ -125,6 +126,7 @@ class RunFinderPublishedTest {
         }
     }
 
+    @Tag("slow")
     @Test
     @Timeout(value = 30, unit = TimeUnit.SECONDS)
     void fiveMillionEqualLettersAreOneRun() {

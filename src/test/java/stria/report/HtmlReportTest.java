@@ -12,6 +12,8 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import stria.io.ContigInfo;
+import stria.testutil.ResultFixtures;
 
 class HtmlReportTest {
     @TempDir
@@ -79,15 +81,15 @@ class HtmlReportTest {
 
     @Test
     void emptyAndRegionLimitedResultsStillMakeAPage() throws Exception {
-        var contigs = List.of(new stria.out.ResultHeader.Contig("a", 50_000),
-                new stria.out.ResultHeader.Contig("b", 8_000));
+        var contigs = List.of(new stria.io.ContigInfo("a", 50_000),
+                new stria.io.ContigInfo("b", 8_000));
         Path empty = ResultFixtures.write(dir.resolve("empty.tsv"), ResultFixtures.header(contigs, null, List.of()),
                 List.of());
         String html = render(empty);
         assertThat(html).contains("These results contain no loci").contains("</html>").doesNotContain("<svg");
 
         Path limited = ResultFixtures.write(dir.resolve("limited.tsv"), ResultFixtures.header(contigs, null,
-                List.of(new stria.out.ResultHeader.Span("a", 1_000, 21_000))),
+                List.of(new stria.io.Region("a", 1_000, 21_000))),
                 List.of(ResultFixtures.row("a", 2_000, 2_040, "AC", 0.95)));
         html = render(limited);
         assertThat(html).contains("limited to regions").contains("a:1,001-21,000").contains("bases scanned</th>")
@@ -96,7 +98,7 @@ class HtmlReportTest {
 
     @Test
     void exactResultsShowLengthsInsteadOfPurity() throws Exception {
-        var contigs = List.of(new stria.out.ResultHeader.Contig("a", 50_000));
+        var contigs = List.of(new stria.io.ContigInfo("a", 50_000));
         Path exact = ResultFixtures.write(dir.resolve("exact.tsv"), ResultFixtures.header(contigs, null, List.of()),
                 List.of(ResultFixtures.row("a", 100, 124, "AC", 1.0), ResultFixtures.row("a", 500, 530, "AAG", 1.0)));
         assertThat(render(exact)).contains("Loci by length").doesNotContain("Locus length against purity");

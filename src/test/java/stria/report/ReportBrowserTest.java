@@ -6,8 +6,8 @@ import static org.junit.jupiter.api.Assumptions.assumeTrue;
 import java.awt.Color;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
-import java.io.StringWriter;
 import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -20,16 +20,19 @@ import java.util.Set;
 import java.util.concurrent.TimeUnit;
 import javax.imageio.ImageIO;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
 import stria.cli.ReportCommand;
+import stria.testutil.ResultFixtures;
 
 /**
  * Opens written reports in headless Chromium and checks what a reader would see: a screenshot with the
  * charts drawn in their colours, and a page that logs nothing to the console. Screenshots are kept in
  * target/report-screens for a look by eye.
  */
+@Tag("tools")
 class ReportBrowserTest {
     private static Path chromium;
 

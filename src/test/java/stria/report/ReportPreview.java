@@ -4,6 +4,7 @@ import java.io.OutputStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import stria.testutil.ResultFixtures;
 
 /** Writes preview reports to a directory, for looking at them by eye: java ... ReportPreview DIR. */
 final class ReportPreview {

@@ -11,7 +11,9 @@ import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import stria.out.ResultHeader;
+import stria.io.ContigInfo;
+import stria.io.Region;
+import stria.testutil.ResultFixtures;
 
 class SummaryTest {
 
@@ -69,7 +71,7 @@ class SummaryTest {
 
     @Test
     void genomeRowSumsContigsAndSharesUseBasesScanned(@TempDir Path dir) throws Exception {
-        var h = ResultFixtures.header(List.of(new ResultHeader.Contig("a", 1000), new ResultHeader.Contig("b", 500)),
+        var h = ResultFixtures.header(List.of(new ContigInfo("a", 1000), new ContigInfo("b", 500)),
                 null, List.of());
         List<String> rows = new ArrayList<>();
         rows.add(ResultFixtures.row("a", 10, 30, "AC", 1.0));
@@ -90,10 +92,10 @@ class SummaryTest {
 
     @Test
     void regionsSetTheBasesScanned(@TempDir Path dir) throws Exception {
-        var contigs = List.of(new ResultHeader.Contig("a", 1000), new ResultHeader.Contig("b", 500));
+        var contigs = List.of(new ContigInfo("a", 1000), new ContigInfo("b", 500));
         // two files, overlapping regions on a, none on b: a counts the union 0-300, b is not scanned
-        var h1 = ResultFixtures.header(contigs, null, List.of(new ResultHeader.Span("a", 0, 200)));
-        var h2 = ResultFixtures.header(contigs, null, List.of(new ResultHeader.Span("a", 100, 300)));
+        var h1 = ResultFixtures.header(contigs, null, List.of(new Region("a", 0, 200)));
+        var h2 = ResultFixtures.header(contigs, null, List.of(new Region("a", 100, 300)));
         Path f1 = ResultFixtures.write(dir.resolve("1.tsv"), h1, List.of(ResultFixtures.row("a", 10, 30, "AC", 1.0)));
         Path f2 = ResultFixtures.write(dir.resolve("2.tsv"), h2, List.of(ResultFixtures.row("a", 250, 262, "AG", 1.0)));
         ResultSet r = ResultReader.read(List.of(f1.toString(), f2.toString()));

@@ -10,26 +10,28 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 import net.jqwik.api.constraints.IntRange;
+import stria.io.ContigInfo;
+import stria.io.Region;
 
 class PartitionProperties {
 
     @Provide
-    Arbitrary<List<ContigSpan>> genomes() {
+    Arbitrary<List<ContigInfo>> genomes() {
         Arbitrary<Integer> length = Arbitraries.oneOf(
                 Arbitraries.integers().between(0, 50),
                 Arbitraries.integers().between(1, 3_000),
                 Arbitraries.integers().between(10_000, 200_000));
         return length.list().ofMinSize(0).ofMaxSize(15).map(ls -> {
-            List<ContigSpan> out = new ArrayList<>();
+            List<ContigInfo> out = new ArrayList<>();
             for (int i = 0; i < ls.size(); i++) {
-                out.add(new ContigSpan("ctg" + i, ls.get(i)));
+                out.add(new ContigInfo("ctg" + i, ls.get(i)));
             }
             return out;
         });
     }
 
     @Property
-    void everyBaseBelongsToExactlyOneShardInGenomeOrder(@ForAll("genomes") List<ContigSpan> genome,
+    void everyBaseBelongsToExactlyOneShardInGenomeOrder(@ForAll("genomes") List<ContigInfo> genome,
                                                          @ForAll @IntRange(min = 1, max = 60) int n,
                                                          @ForAll @IntRange(min = 1, max = 20_000) int grain) {
         List<Shard> shards = Partition.of(genome, n, grain);
@@ -40,9 +42,9 @@ class PartitionProperties {
         int pos = 0;
         for (int k = 0; k < n; k++) {
             Shard s = shards.get(k);
-            assertThat(s.k()).isEqualTo(k + 1);
-            assertThat(s.n()).isEqualTo(n);
-            for (Piece p : s.pieces()) {
+            assertThat(s.id().k()).isEqualTo(k + 1);
+            assertThat(s.id().n()).isEqualTo(n);
+            for (Region p : s.pieces()) {
                 assertThat(contig).as("piece past the genome end").isLessThan(genome.size());
                 assertThat(p.contig()).isEqualTo(genome.get(contig).name());
                 assertThat(p.start()).isEqualTo(pos);
@@ -57,11 +59,11 @@ class PartitionProperties {
     }
 
     @Property
-    void cutsInsideAContigFallOnTheGrain(@ForAll("genomes") List<ContigSpan> genome,
+    void cutsInsideAContigFallOnTheGrain(@ForAll("genomes") List<ContigInfo> genome,
                                           @ForAll @IntRange(min = 1, max = 60) int n,
                                           @ForAll @IntRange(min = 1, max = 20_000) int grain) {
         for (Shard s : Partition.of(genome, n, grain)) {
-            for (Piece p : s.pieces()) {
+            for (Region p : s.pieces()) {
                 int length = lengthOf(genome, p.contig());
                 if (p.start() != 0) {
                     assertThat(p.start() % grain).isZero();
@@ -74,7 +76,7 @@ class PartitionProperties {
     }
 
     @Property
-    void shardSizesDifferByAtMostOneGrainOrOneWholeContig(@ForAll("genomes") List<ContigSpan> genome,
+    void shardSizesDifferByAtMostOneGrainOrOneWholeContig(@ForAll("genomes") List<ContigInfo> genome,
                                                           @ForAll @IntRange(min = 1, max = 60) int n,
                                                           @ForAll @IntRange(min = 1, max = 20_000) int grain) {
         List<Shard> shards = Partition.of(genome, n, grain);
@@ -86,7 +88,7 @@ class PartitionProperties {
         }
         int largestUncut = 0;
         int step = 0; // the largest distance between neighbouring permitted cuts
-        for (ContigSpan c : genome) {
+        for (ContigInfo c : genome) {
             if (isWhole(shards, c)) {
                 largestUncut = Math.max(largestUncut, c.length());
             }
@@ -97,7 +99,7 @@ class PartitionProperties {
     }
 
     @Property
-    void theSameInputGivesTheSamePartition(@ForAll("genomes") List<ContigSpan> genome,
+    void theSameInputGivesTheSamePartition(@ForAll("genomes") List<ContigInfo> genome,
                                            @ForAll @IntRange(min = 1, max = 60) int n,
                                            @ForAll @IntRange(min = 1, max = 20_000) int grain) {
         assertThat(Partition.of(List.copyOf(genome), n, grain)).isEqualTo(Partition.of(genome, n, grain));
@@ -107,9 +109,9 @@ class PartitionProperties {
     void aContigIsCutOnlyWhereNoContigEndWouldDo(@ForAll @IntRange(min = 1, max = 8) int contigs,
                                                  @ForAll @IntRange(min = 1, max = 8) int n) {
         // equal contigs divide evenly among a divisor number of shards without a single cut
-        List<ContigSpan> genome = new ArrayList<>();
+        List<ContigInfo> genome = new ArrayList<>();
         for (int i = 0; i < contigs * n; i++) {
-            genome.add(new ContigSpan("chr" + i, 5_000_000));
+            genome.add(new ContigInfo("chr" + i, 5_000_000));
         }
         for (Shard s : Partition.of(genome, n, 1_000_000)) {
             assertThat(s.pieces()).hasSize(contigs)
@@ -117,9 +119,9 @@ class PartitionProperties {
         }
     }
 
-    private static boolean isWhole(List<Shard> shards, ContigSpan c) {
+    private static boolean isWhole(List<Shard> shards, ContigInfo c) {
         for (Shard s : shards) {
-            for (Piece p : s.pieces()) {
+            for (Region p : s.pieces()) {
                 if (p.contig().equals(c.name())) {
                     return p.length() == c.length();
                 }
@@ -128,7 +130,7 @@ class PartitionProperties {
         return true; // empty contigs are never cut
     }
 
-    private static int nextNonEmpty(List<ContigSpan> genome, int from) {
+    private static int nextNonEmpty(List<ContigInfo> genome, int from) {
         int i = from;
         while (i < genome.size() && genome.get(i).length() == 0) {
             i++;
@@ -136,8 +138,8 @@ class PartitionProperties {
         return i;
     }
 
-    private static int lengthOf(List<ContigSpan> genome, String name) {
-        for (ContigSpan c : genome) {
+    private static int lengthOf(List<ContigInfo> genome, String name) {
+        for (ContigInfo c : genome) {
             if (c.name().equals(name)) {
                 return c.length();
             }

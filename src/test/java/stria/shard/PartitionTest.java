@@ -5,22 +5,24 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import stria.io.ContigInfo;
+import stria.io.Region;
 
 class PartitionTest {
     private static final int MB = 1_000_000;
 
     @Test
     void wholeContigsWhenTheyBalance() {
-        List<ContigSpan> g = List.of(new ContigSpan("a", 3 * MB), new ContigSpan("b", 2 * MB),
-                new ContigSpan("c", MB));
+        List<ContigInfo> g = List.of(new ContigInfo("a", 3 * MB), new ContigInfo("b", 2 * MB),
+                new ContigInfo("c", MB));
         List<Shard> s = Partition.of(g, 2, MB);
-        assertThat(s.get(0).pieces()).containsExactly(new Piece("a", 0, 3 * MB));
-        assertThat(s.get(1).pieces()).containsExactly(new Piece("b", 0, 2 * MB), new Piece("c", 0, MB));
+        assertThat(s.get(0).pieces()).containsExactly(new Region("a", 0, 3 * MB));
+        assertThat(s.get(1).pieces()).containsExactly(new Region("b", 0, 2 * MB), new Region("c", 0, MB));
     }
 
     @Test
     void aLongContigIsCutOnTheGrain() {
-        List<ContigSpan> g = List.of(new ContigSpan("chr1", 10 * MB + 17));
+        List<ContigInfo> g = List.of(new ContigInfo("chr1", 10 * MB + 17));
         List<Shard> s = Partition.of(g, 3, MB);
         assertThat(s).extracting(Shard::bases).allSatisfy(b -> assertThat(b).isBetween(3L * MB, 4L * MB + 17));
         assertThat(s.get(0).pieces().get(0).end() % MB).isZero();
@@ -29,7 +31,7 @@ class PartitionTest {
 
     @Test
     void moreShardsThanGrainsLeavesSomeEmpty() {
-        List<ContigSpan> g = List.of(new ContigSpan("x", 2_500), new ContigSpan("y", 10));
+        List<ContigInfo> g = List.of(new ContigInfo("x", 2_500), new ContigInfo("y", 10));
         List<Shard> s = Partition.of(g, 7, 1_000);
         assertThat(s).hasSize(7);
         assertThat(s.stream().filter(x -> x.pieces().isEmpty()).count()).isEqualTo(3);
@@ -43,13 +45,13 @@ class PartitionTest {
     }
 
     @Test
-    void ownershipFollowsThePieces() {
-        Shard s = new Shard(2, 3, List.of(new Piece("chr1", 2 * MB, 5 * MB)));
+    void ownershipFollowsTheRegions() {
+        Shard s = new Shard(new ShardId(2, 3), List.of(new Region("chr1", 2 * MB, 5 * MB)));
         assertThat(s.owns("chr1", 2 * MB)).isTrue();
         assertThat(s.owns("chr1", 5 * MB - 1)).isTrue();
         assertThat(s.owns("chr1", 5 * MB)).isFalse();
         assertThat(s.owns("chr2", 3 * MB)).isFalse();
-        assertThat(s.label()).isEqualTo("2/3");
+        assertThat(s.id()).hasToString("2/3");
     }
 
     @Test

@@ -4,18 +4,21 @@ import static org.assertj.core.api.Assertions.assertThat;
 
 import java.util.List;
 import org.junit.jupiter.api.Test;
-import stria.score.ScoreSettings;
+import stria.pipeline.ScanOptions;
+import stria.pipeline.ScanSettings;
 
 /**
- * The planted-truth benchmark at CI size: a simulated genome with known repeats, scanned with the
- * default settings, must meet the targets the full benchmark (bench/planted.sh) reports against.
+ * The planted-truth benchmark at CI size: a simulated genome with known repeats, scanned with the default
+ * filters through the real pipeline (windows of 100 kb, stitched, two threads, scored in chunks), must meet
+ * the targets the full benchmark (bench/planted.sh) reports against.
  */
 class PlantedTruthTest {
     @Test
     void defaultSettingsMeetTheTargetsOnAPlantedGenome() {
         GenomeSimulator.Genome g = GenomeSimulator.generate("--seed", "5", "--size", "3000000", "--contigs", "3",
                 "--satellites", "1", "--satellite-length", "80000", "--gaps", "6", "--lower", "12");
-        List<TruthScorer.Call> calls = TruthScorer.scanInProcess(g, ScoreSettings.defaults());
+        ScanSettings settings = new ScanOptions(ScanSettings.Mode.IMPERFECT).threads(2).window(100_000L).settings();
+        List<TruthScorer.Call> calls = TruthScorer.scanInProcess(g, settings);
         TruthScorer.Result r = TruthScorer.score(g.truth(), calls);
         System.out.print(r.summary());
         assertThat(r.plantedEligible()).isGreaterThan(250);

@@ -1,4 +1,4 @@
-package stria.report;
+package stria.testutil;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -8,32 +8,34 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Random;
+import stria.io.ContigInfo;
+import stria.io.Region;
 import stria.out.ResultHeader;
 import stria.score.MotifClass;
 
 /** Invented TSV results in the format of DEVELOPERS.md, for report tests. */
-final class ResultFixtures {
-    static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
+public final class ResultFixtures {
+    public static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
             + "\tmismatches\tinsertions\tdeletions\tscore\tentropy";
-    static final String SETTINGS = "mode=imperfect min-period=1 max-period=2000 min-copies=2 min-length=12 "
+    public static final String SETTINGS = "mode=imperfect min-period=1 max-period=2000 min-copies=2 min-length=12 "
             + "min-purity=0.8 min-score=30";
 
     private ResultFixtures() {
     }
 
-    static ResultHeader header(List<ResultHeader.Contig> contigs, String shard, List<ResultHeader.Span> regions) {
+    public static ResultHeader header(List<ContigInfo> contigs, String shard, List<Region> regions) {
         return new ResultHeader("0.1.0", "scan --tsv out.tsv invented.fa", SETTINGS, contigs, shard, regions);
     }
 
     /** A locus row; copies, length and the alignment columns follow from the others. */
-    static String row(String chrom, int start, int end, String motif, double purity) {
+    public static String row(String chrom, int start, int end, String motif, double purity) {
         int len = end - start;
         return String.format(Locale.ROOT, "%s\t%d\t%d\t%d\t%s\t%s\t%.2f\t%d\t%.3f\t%d\t0\t0\t%d\t1.500", chrom, start,
                 end, motif.length(), motif, MotifClass.of(motif), (double) len / motif.length(), len, purity,
                 Math.round(len * (1 - purity)), len * 2);
     }
 
-    static Path write(Path file, ResultHeader h, List<String> rows) throws IOException {
+    public static Path write(Path file, ResultHeader h, List<String> rows) throws IOException {
         List<String> lines = new ArrayList<>(h.lines());
         lines.add(TSV_HEADER);
         lines.addAll(rows);
@@ -45,19 +47,19 @@ final class ResultFixtures {
      * A genome of {@code contigs} contigs, lengths falling off like a typical draft assembly (a few long
      * ones, many short), with loci of all four period classes planted at random, not overlapping.
      */
-    static Path genome(Path file, int contigs, long seed) throws IOException {
+    public static Path genome(Path file, int contigs, long seed) throws IOException {
         Random r = new Random(seed);
-        List<ResultHeader.Contig> cs = new ArrayList<>();
+        List<ContigInfo> cs = new ArrayList<>();
         for (int c = 0; c < contigs; c++) {
             int len = c < 5 ? 2_000_000 - 250_000 * c : 5_000 + r.nextInt(contigs > 50 ? 300_000 / (1 + c / 20) : 900_000);
-            cs.add(new ResultHeader.Contig(String.format(Locale.ROOT, "scaffold_%03d", c + 1), len));
+            cs.add(new ContigInfo(String.format(Locale.ROOT, "scaffold_%03d", c + 1), len));
         }
         if (contigs == 1) {
-            cs.set(0, new ResultHeader.Contig("chrI", 3_500_000));
+            cs.set(0, new ContigInfo("chrI", 3_500_000));
         }
         String[] micro = {"A", "C", "AC", "AG", "AT", "CAG", "AAT", "GATA", "AAAG", "TTAGGG", "CCG", "ACGT"};
         List<String> rows = new ArrayList<>();
-        for (ResultHeader.Contig c : cs) {
+        for (ContigInfo c : cs) {
             int pos = r.nextInt(500);
             while (true) {
                 pos += 50 + r.nextInt(contigs == 1 ? 3_000 : 6_000);
@@ -86,7 +88,7 @@ final class ResultFixtures {
         return write(file, header(cs, null, List.of()), rows);
     }
 
-    static String randomMotif(Random r, int n) {
+    public static String randomMotif(Random r, int n) {
         StringBuilder sb = new StringBuilder(n);
         for (int i = 0; i < n; i++) {
             sb.append("ACGT".charAt(r.nextInt(4)));

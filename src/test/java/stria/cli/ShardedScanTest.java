@@ -15,6 +15,7 @@ import java.util.List;
 import htsjdk.samtools.util.BlockCompressedInputStream;
 import htsjdk.tribble.readers.TabixReader;
 import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import stria.testutil.Cli;
@@ -25,7 +26,8 @@ import stria.testutil.Cli;
  * falls) are scanned with {@code scripts/stria scan --shard K/N} and joined with {@code stria merge}, in the
  * default (imperfect) mode and with {@code --exact}.
  */
-class ShardMergeTest {
+@Tag("slow")
+class ShardedScanTest {
     private static final Path DEMO = Cli.projectDir().resolve("testdata/demo.fa.gz");
 
     @TempDir

@@ -1,4 +1,4 @@
-package stria.shard;
+package stria.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 
@@ -12,7 +12,6 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
-import stria.cli.PartitionCommand;
 
 class PartitionCommandTest {
     @TempDir

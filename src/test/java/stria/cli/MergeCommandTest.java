@@ -1,4 +1,4 @@
-package stria.shard;
+package stria.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
@@ -19,14 +19,14 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
 import stria.StriaException;
-import stria.cli.MergeCommand;
+import stria.io.ContigInfo;
 import stria.out.ResultHeader;
 
-/** Merging hand-made shard results: the output, and the sets merge must refuse. */
-class ShardSetTest {
+/** {@code stria merge} on hand-made shard results: the output, and the sets merge must refuse. */
+class MergeCommandTest {
     private static final String SETTINGS = "mode=imperfect min-period=1 max-period=2000 min-copies=2";
-    private static final List<ResultHeader.Contig> GENOME = List.of(new ResultHeader.Contig("chrA", 5000),
-            new ResultHeader.Contig("chrB", 3000));
+    private static final List<ContigInfo> GENOME = List.of(new ContigInfo("chrA", 5000),
+            new ContigInfo("chrB", 3000));
     private static final String COLUMNS = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
             + "\tmismatches\tinsertions\tdeletions\tscore\tentropy";
 
@@ -152,7 +152,7 @@ class ShardSetTest {
     void refusesShardsOfDifferentInputs() {
         List<String> f = write("in", BED, null, 3, Compression.PLAIN);
         String other = writeOne("other.bed", new ResultHeader("0.1.0", "scan", SETTINGS,
-                List.of(new ResultHeader.Contig("chrA", 5000), new ResultHeader.Contig("chrB", 3001)), "2/3",
+                List.of(new ContigInfo("chrA", 5000), new ContigInfo("chrB", 3001)), "2/3",
                 List.of()), null, List.of(), Compression.PLAIN);
         assertRefused(List.of(f.get(0), other, f.get(2)), "different inputs", other);
     }
@@ -206,12 +206,6 @@ class ShardSetTest {
         List<List<String>> foreign = List.of(List.of("chrZ\t1\t20\tA\t1000\t.\t1\t19.00\tA"), List.of(), List.of());
         List<String> h = write("fo", foreign, null, 3, Compression.PLAIN);
         assertRefused(h, "not a locus of this genome", h.get(0));
-    }
-
-    @Test
-    void collapsesShardNumbersIntoRanges() {
-        assertThat(ShardMerge.ranges(List.of(1, 3, 4, 5, 9, 10))).isEqualTo("1, 3-5, 9-10");
-        assertThat(ShardMerge.ranges(List.of(7))).isEqualTo("7");
     }
 
     private void assertRefused(List<String> files, String fragment, String namedFile) {

@@ -15,10 +15,13 @@ import java.util.concurrent.Callable;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
-import stria.repeats.RunList;
-import stria.score.Locus;
-import stria.score.LocusCaller;
-import stria.score.ScoreSettings;
+import stria.pipeline.Genome;
+import stria.pipeline.GenomeScan;
+import stria.pipeline.Progress;
+import stria.pipeline.ScanOptions;
+import stria.pipeline.ScanPlan;
+import stria.pipeline.ScanSettings;
+import stria.pipeline.Selection;
 
 /**
  * Scores reported loci against the truth table of a simulated genome.
@@ -31,8 +34,7 @@ import stria.score.ScoreSettings;
  *   <li>purity error: for found loci, |reported purity - planted identity|, median.
  * </ul>
  * Either reads a stria TSV ({@code --calls}) or, with {@code --simulate}, generates the genome in memory
- * and calls loci in-process over whole contigs (exact seeds by direct comparison), for use before or
- * without the command-line scan.
+ * and scans it in-process with the scan's library call (default settings), without files in between.
  */
 @Command(name = "TruthScorer", mixinStandardHelpOptions = true,
         description = "Scores reported tandem-repeat loci against a planted truth table.")
@@ -97,8 +99,7 @@ public final class TruthScorer implements Callable<Integer> {
             long t0 = System.nanoTime();
             GenomeSimulator.Genome g = GenomeSimulator.generate(simulate.toArray(String[]::new));
             long t1 = System.nanoTime();
-            ScoreSettings st = ScoreSettings.defaults();
-            reported = scanInProcess(g, st);
+            reported = scanInProcess(g, new ScanOptions(ScanSettings.Mode.IMPERFECT).settings());
             long t2 = System.nanoTime();
             long bases = 0;
             for (byte[] s : g.sequences()) {
@@ -106,7 +107,7 @@ public final class TruthScorer implements Callable<Integer> {
             }
             System.out.printf(Locale.ROOT, "genome      %d bases, %d contigs, %d planted loci (simulated in %.2f s)%n",
                     bases, g.names().size(), g.truth().size(), (t1 - t0) / 1e9);
-            System.out.printf(Locale.ROOT, "scan        %d loci in %.2f s (in-process, exact seeds by direct comparison)%n",
+            System.out.printf(Locale.ROOT, "scan        %d loci in %.2f s (in-process)%n",
                     reported.size(), (t2 - t1) / 1e9);
             planted = g.truth();
         } else {
@@ -124,23 +125,12 @@ public final class TruthScorer implements Callable<Integer> {
         return 0;
     }
 
-    /** Calls loci over every contig of an in-memory genome in one whole-contig call each. */
-    public static List<Call> scanInProcess(GenomeSimulator.Genome g, ScoreSettings st) {
-        LocusCaller caller = new LocusCaller(st);
+    /** Scans an in-memory genome through the real pipeline (windows, threads, stitching, scoring in chunks). */
+    public static List<Call> scanInProcess(GenomeSimulator.Genome g, ScanSettings settings) {
         List<Call> out = new ArrayList<>();
-        for (int c = 0; c < g.names().size(); c++) {
-            byte[] seq = g.sequences().get(c);
-            RunList runs = NaiveRuns.find(seq, seq.length, Math.min(st.maxPeriod(), LocusCaller.SEED_MAX_PERIOD));
-            RunList seeds = new RunList();
-            for (int i = 0; i < runs.size(); i++) {
-                if (caller.isSeed(runs.start(i), runs.end(i), runs.period(i))) {
-                    seeds.add(runs.start(i), runs.end(i), runs.period(i));
-                }
-            }
-            for (Locus l : caller.call(seq, seq.length, seeds, 0, seq.length, 0, seq.length)) {
-                out.add(new Call(g.names().get(c), l.start(), l.end(), l.period(), l.purity()));
-            }
-        }
+        ScanPlan plan = ScanPlan.of(Genome.of(g.names(), g.sequences()), Selection.wholeGenome());
+        new GenomeScan(settings, Progress.none()).run(plan,
+                (contig, l) -> out.add(new Call(contig, l.start(), l.end(), l.period(), l.purity())));
         return out;
     }
 

@@ -1,4 +1,4 @@
-package stria.report;
+package stria.cli;
 
 import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.assertThatThrownBy;
@@ -15,15 +15,15 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import picocli.CommandLine;
 import stria.StriaException;
-import stria.cli.ReportCommand;
-import stria.out.ResultHeader;
+import stria.io.ContigInfo;
+import stria.testutil.ResultFixtures;
 
 class ReportCommandTest {
     @TempDir
     Path dir;
 
-    private final List<ResultHeader.Contig> contigs = List.of(new ResultHeader.Contig("chr1", 1_000),
-            new ResultHeader.Contig("chr2", 4_000));
+    private final List<ContigInfo> contigs = List.of(new ContigInfo("chr1", 1_000),
+            new ContigInfo("chr2", 4_000));
 
     private Path smallResult() throws Exception {
         return ResultFixtures.write(dir.resolve("r.tsv"), ResultFixtures.header(contigs, null, List.of()), List.of(
@@ -101,7 +101,7 @@ class ReportCommandTest {
     void refusesResultsOfTwoGenomesNamingBothFiles() throws Exception {
         Path a = smallResult();
         Path b = ResultFixtures.write(dir.resolve("other.tsv"), ResultFixtures.header(
-                List.of(new ResultHeader.Contig("chr1", 999)), null, List.of()), List.of());
+                List.of(new ContigInfo("chr1", 999)), null, List.of()), List.of());
         Path html = dir.resolve("never.html");
         assertThatThrownBy(() -> call("--html", html.toString(), a.toString(), b.toString()))
                 .isInstanceOf(StriaException.class).hasMessageContaining("r.tsv").hasMessageContaining("other.tsv");

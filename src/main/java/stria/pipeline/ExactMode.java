@@ -1,0 +1,90 @@
+package stria.pipeline;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.concurrent.ExecutorService;
+import java.util.function.LongConsumer;
+import stria.io.ContigBytes;
+import stria.out.LocusSink;
+import stria.repeats.RunList;
+import stria.score.ExactLocus;
+import stria.score.Locus;
+import stria.score.NeedMoreContextException;
+import stria.score.ScoreSettings;
+
+/** Exact runs as loci: each stitched run that passes the filters, motif and composition from its first copy. */
+final class ExactMode implements ScanMode {
+    private final ScoreSettings filters;
+
+    ExactMode(ScoreSettings filters) {
+        this.filters = filters;
+    }
+
+    @Override
+    public boolean keep(int s, int e, int p) {
+        return passes(s, e, p);
+    }
+
+    private boolean passes(int s, int e, int p) {
+        int len = e - s;
+        return p >= filters.minPeriod() && p <= filters.maxPeriod() && len >= filters.minLength()
+                && len >= filters.minCopies() * p - 1e-9;
+    }
+
+    @Override
+    public int readPad() {
+        return 0;
+    }
+
+    @Override
+    public double findShare() {
+        return 1;
+    }
+
+    @Override
+    public Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out) {
+        String name = unit.contig().name();
+        if (unit.wholeContig()) {
+            // the stitched runs are the loci, in order: written as they come
+            return new Pass() {
+                @Override
+                public void run(int s, int e, int p) {
+                    if (passes(s, e, p)) {
+                        out.locus(name, ExactLocus.of(seq, s, e, p));
+                    }
+                }
+
+                @Override
+                public void finish(ExecutorService pool, LongConsumer solved) {
+                }
+            };
+        }
+        RunList kept = new RunList();
+        return new Pass() {
+            @Override
+            public void run(int s, int e, int p) {
+                if (s >= unit.from() && s < unit.to()) {
+                    kept.add(s, e, p);
+                }
+            }
+
+            @Override
+            public void finish(ExecutorService pool, LongConsumer solved) {
+                int len = unit.contig().length();
+                List<Locus> loci = new ArrayList<>();
+                for (int i = 0; i < kept.size(); i++) {
+                    int s = kept.start(i), e = kept.end(i), p = kept.period(i);
+                    if ((e == plan.hi() && plan.hi() < len) || (s == plan.lo() && plan.lo() > 0)) {
+                        throw new NeedMoreContextException("run at " + s + " may continue past the context");
+                    }
+                    if (passes(s, e, p)) {
+                        loci.add(ExactLocus.of(seq, s, e, p));
+                    }
+                }
+                for (Locus l : loci) {
+                    out.locus(name, l);
+                }
+            }
+        };
+    }
+}

@@ -1,0 +1,43 @@
+package stria.pipeline;
+
+import java.util.concurrent.ExecutorService;
+import java.util.function.LongConsumer;
+import stria.io.ContigBytes;
+import stria.out.LocusSink;
+import stria.score.NeedMoreContextException;
+
+/**
+ * What differs between the two modes of a scan: which runs a window keeps, and how the stitched runs of a
+ * unit become its loci. {@link GenomeScan} does the rest alike for both.
+ */
+sealed interface ScanMode permits ExactMode, ImperfectMode {
+    /** @param scoreChunk length of the stretches scored as separate tasks (imperfect mode) */
+    static ScanMode of(ScanSettings settings, int scoreChunk) {
+        return settings.exact() ? new ExactMode(settings.filters())
+                : new ImperfectMode(settings.filters(), scoreChunk);
+    }
+
+    /** Whether a window keeps a complete run (runs touching a window end are always kept, for stitching). */
+    boolean keep(int start, int end, int period);
+
+    /** Bases read beyond the context of a unit that is not a whole contig, on each side. */
+    int readPad();
+
+    /** The share of a unit's progress that finding its runs earns; turning them into loci earns the rest. */
+    double findShare();
+
+    /** One pass over the runs of a unit's context {@code plan} (read into {@code seq}), loci to {@code out}. */
+    Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out);
+
+    /** Receives the stitched runs of the context, then delivers the unit's loci. */
+    interface Pass extends Stitcher.Sink {
+        /**
+         * Delivers the loci of the unit to the sink, using the pool when it helps; {@code solved} hears of
+         * bases whose loci are delivered.
+         *
+         * @throws NeedMoreContextException when a locus may reach beyond the context; nothing is delivered
+         *                                   then (it cannot happen for a whole contig)
+         */
+        void finish(ExecutorService pool, LongConsumer solved) throws InterruptedException;
+    }
+}

@@ -1,0 +1,134 @@
+package stria.pipeline;
+
+import stria.pipeline.ScanSettings.Mode;
+import stria.score.ScoreSettings;
+
+/**
+ * The options of a scan, their defaults per mode and their checks, in one place: set what was asked for
+ * (null keeps the default), then {@link #settings()} applies the defaults of the mode, checks every value and
+ * builds the {@link ScanSettings}. The defaults are compile-time constants so that {@code --help} can show them.
+ */
+public final class ScanOptions {
+    /** Homopolymers are masked too: a long poly-A tract confuses gene prediction as much as (CA)n does. */
+    public static final int MIN_PERIOD = 1;
+    /** Covers satellite units up to 2 kb; longer units are the business of interspersed-repeat tools. */
+    public static final int MAX_PERIOD = 2000;
+    /** The largest --max-period accepted. */
+    public static final int MAX_PERIOD_LIMIT = 1_000_000;
+    public static final int MAX_THREADS = 1024;
+
+    /** Exact mode: every run an annotator would mask, not every AA. Two copies make a tandem repeat. */
+    public static final double EXACT_MIN_COPIES = 2;
+    /** Below 12 bp even pure tracts are common by chance and not worth masking. */
+    public static final int EXACT_MIN_LENGTH = 12;
+
+    /*
+     * Imperfect mode, chosen on the planted-truth benchmark (bench/planted.sh).
+     */
+    /** Two copies make a tandem repeat; shorter loci are left to the length and score filters. */
+    public static final double IMPERFECT_MIN_COPIES = 2.0;
+    /** Below 12 bp, even pure tracts are common by chance (binds only with a low min score). */
+    public static final int IMPERFECT_MIN_LENGTH = 12;
+    /** The score already gates weak loci (0.60-0.75 give the same calls on the benchmark); 0.80 drops true ones. */
+    public static final double IMPERFECT_MIN_PURITY = 0.70;
+    /** 18 net matches: keeps every planted locus 30 keeps, chance loci in random DNA drop from ~35 to ~6 per Mb. */
+    public static final int IMPERFECT_MIN_SCORE = 36;
+
+    private final Mode mode;
+    private Integer minPeriod;
+    private Integer maxPeriod;
+    private Double minCopies;
+    private Integer minLength;
+    private Double minPurity;
+    private Integer minScore;
+    private int threads = Runtime.getRuntime().availableProcessors();
+    private Long window;
+
+    public ScanOptions(Mode mode) {
+        this.mode = mode;
+    }
+
+    /** The filters of {@code mode} with every default. */
+    public static ScoreSettings defaults(Mode mode) {
+        return mode == Mode.EXACT
+                ? new ScoreSettings(MIN_PERIOD, MAX_PERIOD, EXACT_MIN_COPIES, EXACT_MIN_LENGTH, 1.0, 0)
+                : new ScoreSettings(MIN_PERIOD, MAX_PERIOD, IMPERFECT_MIN_COPIES, IMPERFECT_MIN_LENGTH,
+                        IMPERFECT_MIN_PURITY, IMPERFECT_MIN_SCORE);
+    }
+
+    public ScanOptions minPeriod(Integer v) {
+        minPeriod = v;
+        return this;
+    }
+
+    public ScanOptions maxPeriod(Integer v) {
+        maxPeriod = v;
+        return this;
+    }
+
+    public ScanOptions minCopies(Double v) {
+        minCopies = v;
+        return this;
+    }
+
+    public ScanOptions minLength(Integer v) {
+        minLength = v;
+        return this;
+    }
+
+    public ScanOptions minPurity(Double v) {
+        minPurity = v;
+        return this;
+    }
+
+    public ScanOptions minScore(Integer v) {
+        minScore = v;
+        return this;
+    }
+
+    public ScanOptions threads(int v) {
+        threads = v;
+        return this;
+    }
+
+    /** Bases per window; null for {@link Geometry#defaultWindow}. */
+    public ScanOptions window(Long v) {
+        window = v;
+        return this;
+    }
+
+    /**
+     * The settings, defaults applied.
+     *
+     * @throws IllegalArgumentException naming the option (as typed on the command line) and what is wrong
+     */
+    public ScanSettings settings() {
+        ScoreSettings d = defaults(mode);
+        int minP = minPeriod != null ? minPeriod : d.minPeriod();
+        int maxP = maxPeriod != null ? maxPeriod : d.maxPeriod();
+        double minC = minCopies != null ? minCopies : d.minCopies();
+        int minL = minLength != null ? minLength : d.minLength();
+        double minPur = minPurity != null ? minPurity : d.minPurity();
+        int minS = minScore != null ? minScore : d.minScore();
+        require(minP >= 1, "--min-period must be at least 1 (got " + minP + ")");
+        require(maxP >= 1 && maxP <= MAX_PERIOD_LIMIT,
+                "--max-period must be between 1 and 1,000,000 (got " + maxP + ")");
+        require(minP <= maxP, "--min-period " + minP + " is above --max-period " + maxP);
+        require(minC >= 0 && !Double.isNaN(minC), "--min-copies must not be negative (got " + minC + ")");
+        require(minL >= 0, "--min-length must not be negative (got " + minL + ")");
+        require(minPur >= 0 && minPur <= 1, "--min-purity must be between 0 and 1 (got " + minPur + ")");
+        require(threads >= 1 && threads <= MAX_THREADS,
+                "--threads must be between 1 and 1024 (got " + threads + ")");
+        int minWin = Geometry.minWindow(maxP);
+        require(window == null || (window >= minWin && window <= Geometry.MAX_WINDOW), "--window must be between "
+                + minWin + " (4 x max-period + 8) and 1G (got " + window + ")");
+        int win = window == null ? Geometry.defaultWindow(maxP) : (int) (long) window;
+        return new ScanSettings(mode, new ScoreSettings(minP, maxP, minC, minL, minPur, minS), threads, win);
+    }
+
+    private static void require(boolean ok, String message) {
+        if (!ok) {
+            throw new IllegalArgumentException(message);
+        }
+    }
+}
