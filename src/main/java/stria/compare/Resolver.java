@@ -1,0 +1,295 @@
+package stria.compare;
+
+import java.util.ArrayList;
+import java.util.List;
+import stria.io.Bases;
+import stria.score.Locus;
+
+/**
+ * Decides one locus of A after B has streamed by: which anchors pair it with B, and what B has between
+ * them. One instance per thread; it reads the engine's state and writes nothing shared.
+ */
+final class Resolver {
+    /** Anchors of one side agree when their diagonals differ by at most this (indels between them). */
+    static final int DIAGONAL_SLACK = 32;
+
+    private final Comparison c;
+    private final AnchorTable t;
+    private final int m;
+    private final StretchAligner aligner = new StretchAligner();
+    private byte[] as = new byte[1024];
+    private byte[] bs = new byte[1024];
+    // candidates of both sides: index side * m + j
+    private final int[] cContig;
+    private final boolean[] cPlus;
+    private final long[] cDiag;
+    private final int[] cPos;
+    private final int[] nCand = new int[2];
+    private final int[] candJ;
+    // clusters of both sides: first member (innermost) and size
+    private final int[] clFirst;
+    private final int[] clSize;
+    private final int[] nCl = new int[2];
+
+    Resolver(Comparison c) {
+        this.c = c;
+        this.t = c.table;
+        this.m = c.m;
+        cContig = new int[2 * m];
+        cPlus = new boolean[2 * m];
+        cDiag = new long[2 * m];
+        cPos = new int[2 * m];
+        candJ = new int[2 * m];
+        clFirst = new int[2 * m];
+        clSize = new int[2 * m];
+    }
+
+    ComparedLocus resolve(int g) {
+        Locus l = c.loci[g];
+        String chrom = c.aNames.get(c.contigOf[g]);
+        if (c.unanchored[g] != null) {
+            return ComparedLocus.unplaced(chrom, l, c.unanchored[g]);
+        }
+        String whyL = candidates(g, Comparison.LEFT);
+        String whyR = candidates(g, Comparison.RIGHT);
+        if (whyL != null || whyR != null) {
+            return ComparedLocus.unplaced(chrom, l, whyL != null ? whyL : whyR);
+        }
+        // the pair of clusters, one per side, on one contig and strand in the right order, with most anchors
+        int best = -1;
+        int bestL = -1;
+        int bestR = -1;
+        long span = c.maxSpan(g);
+        for (int a = 0; a < nCl[0]; a++) {
+            int li = clFirst[a];
+            for (int b = 0; b < nCl[1]; b++) {
+                int ri = clFirst[m + b];
+                if (cContig[li] != cContig[ri] || cPlus[li] != cPlus[ri]) {
+                    continue;
+                }
+                long gap = cPlus[li] ? (long) cPos[ri] - cPos[li] - Kmer.K : (long) cPos[li] - cPos[ri] - Kmer.K;
+                if (gap < 0 || gap > span) {
+                    continue;
+                }
+                int score = clSize[a] + clSize[m + b];
+                if (score > best) {
+                    best = score;
+                    bestL = li;
+                    bestR = ri;
+                }
+            }
+        }
+        if (best < 0) {
+            return ComparedLocus.unplaced(chrom, l, "anchors-disagree");
+        }
+        int contig = cContig[bestL];
+        boolean plus = cPlus[bestL];
+        int lB = cPos[bestL];
+        int rB = cPos[bestR];
+        int lA = c.anchorPos[g * 2 * m + candJ[bestL]];
+        int rA = c.anchorPos[g * 2 * m + m + candJ[bestR]];
+        int lo = Math.min(lB, rB);
+        int hi = Math.max(lB, rB) + Kmer.K;
+        if (c.capContig[g] != contig || c.capPlus[g] != plus || c.capStart[g] > lo || c.capEnd[g] < hi) {
+            return ComparedLocus.unplaced(chrom, l, "stretch-not-kept");
+        }
+        return measure(g, chrom, l, contig, plus, lA, rA, lB, rB);
+    }
+
+    /**
+     * Fills the candidates of one side (anchors once in A and once in B) and their clusters; returns why
+     * the side has none, or null.
+     */
+    private String candidates(int g, int side) {
+        int base = g * 2 * m + side * m;
+        int n = 0;
+        boolean twiceInB = false;
+        boolean missingInB = false;
+        for (int j = 0; j < m; j++) {
+            int q = t.slotOfAnchor[base + j];
+            if (q < 0) {
+                continue;
+            }
+            if (t.countA(q) != 1) {
+                continue;
+            }
+            int nb = t.countB(q);
+            if (nb == 0) {
+                missingInB = true;
+                continue;
+            }
+            if (nb > 1) {
+                twiceInB = true;
+                continue;
+            }
+            int i = side * m + n;
+            cContig[i] = t.hitContig(q);
+            cPlus[i] = t.sameStrand(q);
+            cPos[i] = t.hitPos(q);
+            int ap = c.anchorPos[base + j];
+            cDiag[i] = cPlus[i] ? (long) cPos[i] - ap : (long) cPos[i] + ap;
+            candJ[i] = j;
+            n++;
+        }
+        nCand[side] = n;
+        String s = side == Comparison.LEFT ? "left" : "right";
+        if (n == 0) {
+            return s + (twiceInB ? "-anchor-not-unique-in-B" : missingInB ? "-anchor-missing-in-B"
+                    : "-anchor-not-unique-in-A");
+        }
+        // nearest first: each candidate joins the first cluster it agrees with
+        int k = 0;
+        for (int x = 0; x < n; x++) {
+            int i = side * m + x;
+            int found = -1;
+            for (int y = 0; y < k && found < 0; y++) {
+                int f = clFirst[side * m + y];
+                if (cContig[f] == cContig[i] && cPlus[f] == cPlus[i] && Math.abs(cDiag[f] - cDiag[i]) <= DIAGONAL_SLACK) {
+                    found = y;
+                }
+            }
+            if (found < 0) {
+                clFirst[side * m + k] = i;
+                clSize[side * m + k] = 1;
+                found = k++;
+            } else {
+                clSize[side * m + found]++;
+            }
+        }
+        nCl[side] = k;
+        return null;
+    }
+
+    /**
+     * B's repeat between the inner ends of the chosen anchors: A's stretch {@code [lA + K, rA)} against
+     * B's {@code [lB + K, rB)} (plus strand) or the reverse complement of {@code [rB + K, lB)}.
+     */
+    private ComparedLocus measure(int g, String chrom, Locus l, int contig, boolean plus, int lA, int rA, int lB,
+                                  int rB) {
+        int lo = lA + Kmer.K;
+        int hi = rA;
+        int aLen = hi - lo;
+        if (as.length < aLen) {
+            as = new byte[Math.max(aLen, 2 * as.length)];
+        }
+        c.aBases.get(c.stretchAt[g] + (lo - c.outerL[g]), aLen, as, 0);
+        int bLen = plus ? rB - lB - Kmer.K : lB - rB - Kmer.K;
+        if (bs.length < bLen) {
+            bs = new byte[Math.max(bLen, 2 * bs.length)];
+        }
+        byte[] kept = c.cap[g];
+        int cs = c.capStart[g];
+        if (plus) {
+            System.arraycopy(kept, lB + Kmer.K - cs, bs, 0, bLen);
+        } else {
+            for (int i = 0; i < bLen; i++) {
+                int x = kept[lB - 1 - i - cs];
+                bs[i] = (byte) (x >= 0 && x <= 3 ? 3 - x : Bases.BREAK);
+            }
+        }
+        int s = l.start() - lo;
+        int e = l.end() - lo;
+        int b0;
+        int b1;
+        double purity;
+        String note = null;
+        if (bLen == aLen && java.util.Arrays.equals(as, 0, aLen, bs, 0, bLen)) {
+            b0 = s;
+            b1 = e;
+            purity = l.purity();
+        } else {
+            template(g, lo, hi);
+            if (aligner.align(bs, bLen, c.settings.maxCells())) {
+                b0 = aligner.repeatStart();
+                b1 = aligner.repeatEnd();
+                purity = b1 > b0 ? aligner.purity() : Double.NaN;
+            } else {
+                // too long to align base by base: the flanks are taken as unchanged
+                b0 = s;
+                b1 = Math.max(s, bLen - (aLen - e));
+                purity = Double.NaN;
+                note = "measured-by-length";
+            }
+        }
+        int from;
+        int to;
+        if (plus) {
+            from = lB + Kmer.K + b0;
+            to = lB + Kmer.K + b1;
+        } else {
+            from = lB - b1;
+            to = lB - b0;
+        }
+        int lenB = b1 - b0;
+        int lenA = l.length();
+        Status st;
+        if (lenB == lenA) {
+            st = Status.SAME;
+        } else if (lenB < lenA && lenB < c.settings.minCopies() * l.period() - 1e-9) {
+            st = Status.LOST;
+        } else {
+            st = Status.CHANGED;
+        }
+        return new ComparedLocus(chrom, l, st, c.bName(contig), from, to, plus ? '+' : '-', purity, null, note);
+    }
+
+    /**
+     * The template for A's stretch {@code [lo, hi)}: A's bases, with the target and every other locus of A
+     * there as loops. A neighbour is clipped to the stretch and off the target; one shorter than its period
+     * after that stays bases.
+     */
+    private void template(int g, int lo, int hi) {
+        Locus target = c.loci[g];
+        List<int[]> iv = new ArrayList<>();
+        iv.add(new int[] {target.start(), target.end(), g});
+        int first = c.contigFirst[c.contigOf[g]];
+        int last = c.contigFirst[c.contigOf[g] + 1];
+        for (int h = g - 1; h >= first && c.reachEnd[h] > lo; h--) {
+            neighbour(iv, h, target, lo, hi);
+        }
+        for (int h = g + 1; h < last && c.loci[h].start() < hi; h++) {
+            neighbour(iv, h, target, lo, hi);
+        }
+        iv.sort((x, y) -> x[0] != y[0] ? Integer.compare(x[0], y[0]) : Integer.compare(x[2], y[2]));
+        aligner.reset();
+        int pos = lo;
+        for (int[] x : iv) {
+            Locus k = c.loci[x[2]];
+            int s = Math.max(x[0], pos);
+            if (x[2] != g && x[1] - s < k.period()) {
+                continue;
+            }
+            aligner.linear(as, pos - lo, s - lo);
+            aligner.loop(motifCodes(k), Math.floorMod(s - k.start(), k.period()), x[2] == g);
+            pos = x[1];
+        }
+        aligner.linear(as, pos - lo, hi - lo);
+    }
+
+    /** Adds locus h, clipped to [lo, hi) and off the target (which keeps its own bases), if a period is left. */
+    private void neighbour(List<int[]> iv, int h, Locus target, int lo, int hi) {
+        Locus k = c.loci[h];
+        int s = Math.max(k.start(), lo);
+        int e = Math.min(k.end(), hi);
+        if (s < target.end() && e > target.start()) {
+            if (k.start() < target.start()) {
+                e = Math.min(e, target.start());
+            } else {
+                s = Math.max(s, target.end());
+            }
+        }
+        if (e - s >= k.period()) {
+            iv.add(new int[] {s, e, h});
+        }
+    }
+
+    private static byte[] motifCodes(Locus k) {
+        String mo = k.motif();
+        byte[] out = new byte[mo.length()];
+        for (int i = 0; i < out.length; i++) {
+            int x = Bases.code((byte) mo.charAt(i));
+            out[i] = (byte) (x >= 0 && x <= 3 ? x : 0);
+        }
+        return out;
+    }
+}

@@ -1,0 +1,130 @@
+package stria.compare;
+
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Random;
+import stria.io.ContigBytes;
+import stria.io.ContigInfo;
+import stria.pipeline.GenomeScan;
+import stria.pipeline.Progress;
+import stria.pipeline.ScanSettings;
+import stria.pipeline.ScanUnit;
+import stria.score.Locus;
+import stria.score.MotifClass;
+import stria.score.ScoreSettings;
+
+/**
+ * Test support: in-memory genomes scanned by the real pipeline, run through the comparison engine in the
+ * order it requires.
+ */
+final class Pairs {
+    private Pairs() {
+    }
+
+    /** Loci of every contig, by the scan's default settings on one thread. */
+    static List<List<Locus>> scan(List<byte[]> seqs) {
+        ScanSettings s = new ScanSettings(false, ScoreSettings.defaults(), 1, 256_000, List.of(), 0, 0, 1_000_000);
+        List<ScanUnit> units = new ArrayList<>();
+        List<List<Locus>> out = new ArrayList<>();
+        for (int c = 0; c < seqs.size(); c++) {
+            byte[] seq = seqs.get(c);
+            ScanUnit.Source src = ScanUnit.Source.of(x -> seq);
+            units.add(new ScanUnit(src, new ContigInfo(c, "c" + c, seq.length), 0, seq.length));
+            out.add(new ArrayList<>());
+        }
+        try (Progress p = new Progress(1, false, System.err)) {
+            new GenomeScan(s, p).run(units, new GenomeScan.Output() {
+                @Override
+                public void beginUnit(ScanUnit unit, ContigBytes q) {
+                }
+
+                @Override
+                public void locus(ScanUnit unit, Locus l) {
+                    out.get(unit.contig().index()).add(l);
+                }
+
+                @Override
+                public void endUnit(ScanUnit unit, ContigBytes q) {
+                }
+            });
+        }
+        return out;
+    }
+
+    /** The four steps: A's contigs and loci, A counted, B streamed, the results. */
+    static Comparison compare(CompareSettings st, List<String> aNames, List<byte[]> a, List<List<Locus>> aLoci,
+                              List<String> bNames, List<byte[]> b) {
+        Comparison.Builder bd = Comparison.builder(st);
+        for (int c = 0; c < a.size(); c++) {
+            bd.addContig(aNames.get(c), ContigBytes.of(a.get(c)), aLoci.get(c));
+        }
+        Comparison cmp = bd.build();
+        for (int c = 0; c < a.size(); c++) {
+            cmp.countA(c, ContigBytes.of(a.get(c)));
+        }
+        for (int c = 0; c < b.size(); c++) {
+            cmp.streamB(bNames.get(c), b.get(c));
+        }
+        return cmp;
+    }
+
+    static CompareSettings settings() {
+        return CompareSettings.defaults(ScoreSettings.DEFAULT_MIN_COPIES);
+    }
+
+    /** A locus as the scan would report a pure one. */
+    static Locus locus(int start, int end, String motif) {
+        int p = motif.length();
+        return new Locus(start, end, p, motif, MotifClass.of(motif), (end - start) / (double) p, 1.0, 0, 0, 0,
+                2 * (end - start), 1.0);
+    }
+
+    static byte[] random(Random r, int n) {
+        byte[] b = new byte[n];
+        for (int i = 0; i < n; i++) {
+            b[i] = (byte) "ACGT".charAt(r.nextInt(4));
+        }
+        return b;
+    }
+
+    static byte[] repeat(String motif, int len) {
+        byte[] b = new byte[len];
+        for (int i = 0; i < len; i++) {
+            b[i] = (byte) motif.charAt(i % motif.length());
+        }
+        return b;
+    }
+
+    static byte[] concat(byte[]... parts) {
+        int n = 0;
+        for (byte[] p : parts) {
+            n += p.length;
+        }
+        byte[] out = new byte[n];
+        int at = 0;
+        for (byte[] p : parts) {
+            System.arraycopy(p, 0, out, at, p.length);
+            at += p.length;
+        }
+        return out;
+    }
+
+    static byte[] reverseComplement(byte[] s) {
+        byte[] out = new byte[s.length];
+        for (int i = 0; i < s.length; i++) {
+            out[s.length - 1 - i] = switch (Character.toUpperCase(s[i])) {
+                case 'A' -> (byte) 'T';
+                case 'C' -> (byte) 'G';
+                case 'G' -> (byte) 'C';
+                case 'T' -> (byte) 'A';
+                default -> (byte) 'N';
+            };
+        }
+        return out;
+    }
+
+    static String text(byte[] s, int from, int to) {
+        return new String(s, from, to - from, StandardCharsets.US_ASCII);
+    }
+}
