@@ -142,7 +142,7 @@ public final class Comparison {
         private long[] stretchAt = new long[1024];
         private final PackedBases packed = new PackedBases();
         private byte[] codes = new byte[4096];
-        private long[] canon = new long[4096];
+        private long[] canon = new long[4097];
         private boolean built;
 
         private Builder(CompareSettings settings) {
@@ -164,52 +164,78 @@ public final class Comparison {
             int c = names.size();
             names.add(name);
             firstOf.add(loci.size());
-            int prevStart = -1;
-            for (Locus l : contigLoci) {
-                if (l.start() < prevStart) {
+            Locus[] ls = contigLoci.toArray(new Locus[0]);
+            int[] maxEnd = new int[ls.length];
+            for (int i = 0; i < ls.length; i++) {
+                Locus l = ls[i];
+                if (i > 0 && l.start() < ls[i - 1].start()) {
                     throw new IllegalArgumentException("loci of " + name + " are not sorted by start");
                 }
                 if (l.start() < 0 || l.end() > bases.length() || l.start() >= l.end()) {
                     throw new IllegalArgumentException("locus [" + l.start() + ", " + l.end() + ") outside " + name);
                 }
-                prevStart = l.start();
-                add(c, bases, l);
+                maxEnd[i] = i == 0 ? l.end() : Math.max(maxEnd[i - 1], l.end());
+            }
+            for (int i = 0; i < ls.length; i++) {
+                add(c, bases, ls, maxEnd, i);
             }
             return this;
         }
 
-        private void add(int c, ContigBytes bases, Locus l) {
+        private void add(int c, ContigBytes bases, Locus[] ls, int[] maxEnd, int i) {
+            Locus l = ls[i];
             int g = loci.size();
             grow(g + 1);
             loci.add(l);
             contigOf[g] = c;
             int s = l.start();
             int e = l.end();
-            int wl = Math.max(0, s - settings.flank());
-            int wr = (int) Math.min(bases.length(), (long) e + settings.flank());
+            int flank = settings.flank();
+            int skip = settings.maxSkip();
+            int contigLen = bases.length();
+            // the other loci nearby: anchors never overlap a repeat, and are sought beyond the ones beside
+            blockedN = 0;
+            long lowBound = (long) s - flank - skip;
+            long highBound = (long) e + flank + skip;
+            for (int h = i - 1; h >= 0 && maxEnd[h] > lowBound; h--) {
+                block(ls[h].start(), ls[h].end());
+            }
+            for (int h = i + 1; h < ls.length && ls[h].start() < highBound; h++) {
+                block(ls[h].start(), ls[h].end());
+            }
+            mergeBlocked();
+            int wl = leftReach(s, flank, skip);
+            int wr = rightReach(e, flank, skip, contigLen);
             int len = wr - wl;
             if (codes.length < len) {
                 codes = new byte[Math.max(len, 2 * codes.length)];
+                mask = new boolean[codes.length];
                 canon = new long[codes.length + 1];
             }
             bases.copy(wl, wr, codes, 0);
             Bases.encode(codes, 0, len, codes);
+            java.util.Arrays.fill(mask, 0, len, false);
+            for (int k = 0; k < blockedN; k++) {
+                for (int x = Math.max(wl, blocked[2 * k]); x < Math.min(wr, blocked[2 * k + 1]); x++) {
+                    mask[x - wl] = true;
+                }
+            }
             int base = g * 2 * m;
             Arrays.fill(anchorPos, base, base + 2 * m, -1);
             Arrays.fill(words, base, base + 2 * m, -1);
             String why = null;
-            for (int i = s - wl; i < e - wl; i++) {
-                if (codes[i] < 0 || codes[i] > 3) {
-                    why = "locus holds a base other than A, C, G, T";
+            for (int x = s - wl; x < e - wl; x++) {
+                if (codes[x] < 0 || codes[x] > 3) {
+                    why = "locus-not-ACGT";
                     break;
                 }
             }
             int nl = why != null ? 0 : leftAnchors(s - wl, wl, base);
             int nr = why != null ? 0 : rightAnchors(e - wl, len, wl, base + m);
             if (why == null && nl == 0) {
-                why = "no anchor word left of the locus (contig end or N)";
+                why = "no-left-anchor";
             } else if (why == null && nr == 0) {
-                why = "no anchor word right of the locus (contig end or N)";
+                why = "no-right-anchor";
             }
             unanchored.add(why);
             if (why != null) {
@@ -226,24 +252,110 @@ public final class Comparison {
             stretchAt[g] = packed.append(codes, lo - wl, hi - wl);
         }
 
+        // other loci near the one being added, as sorted, disjoint [start, end) pairs
+        private int[] blocked = new int[64];
+        private int blockedN;
+        private boolean[] mask = new boolean[4096];
+
+        private void block(int a, int b) {
+            if (2 * blockedN + 2 > blocked.length) {
+                blocked = Arrays.copyOf(blocked, 2 * blocked.length);
+            }
+            blocked[2 * blockedN] = a;
+            blocked[2 * blockedN + 1] = b;
+            blockedN++;
+        }
+
+        private void mergeBlocked() {
+            long[] key = new long[blockedN];
+            for (int k = 0; k < blockedN; k++) {
+                key[k] = ((long) blocked[2 * k] << 32) | (blocked[2 * k + 1] & 0xffffffffL);
+            }
+            Arrays.sort(key);
+            int n = 0;
+            for (long x : key) {
+                int a = (int) (x >>> 32);
+                int b = (int) x;
+                if (n > 0 && a <= blocked[2 * n - 1]) {
+                    blocked[2 * n - 1] = Math.max(blocked[2 * n - 1], b);
+                } else {
+                    blocked[2 * n] = a;
+                    blocked[2 * n + 1] = b;
+                    n++;
+                }
+            }
+            blockedN = n;
+        }
+
+        /**
+         * Where the search for left anchors ends: {@code flank} bases outside other loci, or the start of
+         * the locus that would make the loci passed over longer than {@code skip}, or the contig start.
+         */
+        private int leftReach(int s, int flank, int skip) {
+            int pos = s;
+            int free = 0;
+            int skipped = 0;
+            for (int k = blockedN - 1; k >= 0; k--) {
+                int bs = blocked[2 * k];
+                int be = Math.min(blocked[2 * k + 1], pos);
+                if (bs >= pos) {
+                    continue;
+                }
+                if (free + (pos - be) >= flank) {
+                    break;
+                }
+                free += pos - be;
+                skipped += be - bs;
+                if (skipped > skip) {
+                    return be;
+                }
+                pos = bs;
+            }
+            return Math.max(0, pos - (flank - free));
+        }
+
+        /** As {@link #leftReach}, rightwards from the locus end {@code e}. */
+        private int rightReach(int e, int flank, int skip, int contigLen) {
+            int pos = e;
+            int free = 0;
+            int skipped = 0;
+            for (int k = 0; k < blockedN; k++) {
+                int bs = Math.max(blocked[2 * k], pos);
+                int be = blocked[2 * k + 1];
+                if (be <= pos) {
+                    continue;
+                }
+                if (free + (bs - pos) >= flank) {
+                    break;
+                }
+                free += bs - pos;
+                skipped += be - bs;
+                if (skipped > skip) {
+                    return bs;
+                }
+                pos = be;
+            }
+            return (int) Math.min(contigLen, (long) pos + (flank - free));
+        }
+
         /**
          * Words ending at or before the locus start {@code x} (window coordinates), nearest first, each
-         * ending where the one before starts, sampled, and with only A, C, G, T between it and the locus.
+         * ending where the one before starts, sampled, outside other loci, and with only A, C, G, T
+         * between it and the locus.
          */
         private int leftAnchors(int x, int wl, int at) {
-            int run = 0;
-            while (run < x && codes[x - 1 - run] >= 0 && codes[x - 1 - run] <= 3) {
-                run++;
+            int from = x;
+            while (from > 0 && codes[from - 1] >= 0 && codes[from - 1] <= 3) {
+                from--;
             }
-            int from = x - run;
             roll(from, x);
             int n = 0;
             int limit = x;
             for (int end = x; end - Kmer.K >= from && n < m; end--) {
-                if (end > limit) {
+                long w = canon[end];
+                if (end > limit || w < 0) {
                     continue;
                 }
-                long w = canon[end];
                 if (Kmer.sampled(Kmer.hash(w >>> 1), settings.sampling())) {
                     put(at + n, end - Kmer.K + wl, w);
                     n++;
@@ -255,18 +367,18 @@ public final class Comparison {
 
         /** As {@link #leftAnchors}, outwards from the locus end {@code x} to the window end {@code len}. */
         private int rightAnchors(int x, int len, int wl, int at) {
-            int run = 0;
-            while (x + run < len && codes[x + run] >= 0 && codes[x + run] <= 3) {
-                run++;
+            int to = x;
+            while (to < len && codes[to] >= 0 && codes[to] <= 3) {
+                to++;
             }
-            roll(x, x + run);
+            roll(x, to);
             int n = 0;
             int limit = x;
-            for (int start = x; start + Kmer.K <= x + run && n < m; start++) {
-                if (start < limit) {
+            for (int start = x; start + Kmer.K <= to && n < m; start++) {
+                long w = canon[start + Kmer.K];
+                if (start < limit || w < 0) {
                     continue;
                 }
-                long w = canon[start + Kmer.K];
                 if (Kmer.sampled(Kmer.hash(w >>> 1), settings.sampling())) {
                     put(at + n, start + wl, w);
                     n++;
@@ -277,18 +389,21 @@ public final class Comparison {
         }
 
         /**
-         * canon[end] for every word codes[end - K, end) inside [from, to): the canonical word shifted left
-         * one bit, its lowest bit set when A's + strand reads it in canonical form.
+         * canon[end] for every word codes[end - K, end) inside [from, to) (all A, C, G, T): the canonical
+         * word shifted left one bit, its lowest bit set when A's + strand reads it in canonical form; -1
+         * for a word that overlaps another locus.
          */
         private void roll(int from, int to) {
             long f = 0;
             long r = 0;
+            int clean = 0;
             for (int i = from; i < to; i++) {
                 int c = codes[i];
                 f = ((f << 2) | c) & Kmer.MASK;
                 r = (r >>> 2) | ((long) (3 - c) << Kmer.TOP_SHIFT);
+                clean = mask[i] ? 0 : clean + 1;
                 if (i - from + 1 >= Kmer.K) {
-                    canon[i + 1] = f < r ? (f << 1) | 1 : r << 1;
+                    canon[i + 1] = clean < Kmer.K ? -1 : f < r ? (f << 1) | 1 : r << 1;
                 }
             }
         }

@@ -17,6 +17,8 @@ final class Resolver {
     private final AnchorTable t;
     private final int m;
     private final StretchAligner aligner = new StretchAligner();
+    private final StretchAligner probe = new StretchAligner();
+    private byte[] probeText = new byte[256];
     private byte[] as = new byte[1024];
     private byte[] bs = new byte[1024];
     // candidates of both sides: index side * m + j
@@ -198,11 +200,18 @@ final class Resolver {
             b1 = e;
             purity = l.purity();
         } else {
+            // A's own bases go through the same template: where the aligner would cut A otherwise than the
+            // scan did (a locus split by the scan into two periods, say), B is cut the same way and the
+            // difference is carried over, so that only a difference between the two genomes shows
             template(g, lo, hi);
-            if (aligner.align(bs, bLen, c.settings.maxCells())) {
-                b0 = aligner.repeatStart();
-                b1 = aligner.repeatEnd();
-                purity = b1 > b0 ? aligner.purity() : Double.NaN;
+            long cells = c.settings.maxCells();
+            if (aligner.align(as, aLen, cells)) {
+                int a0 = aligner.repeatStart();
+                int a1 = aligner.repeatEnd();
+                aligner.align(bs, bLen, cells);
+                b0 = Math.max(0, Math.min(bLen, aligner.repeatStart() + (s - a0)));
+                b1 = Math.max(b0, Math.min(bLen, aligner.repeatEnd() + (e - a1)));
+                purity = aligner.repeatEnd() > aligner.repeatStart() ? aligner.purity() : Double.NaN;
             } else {
                 // too long to align base by base: the flanks are taken as unchanged
                 b0 = s;
@@ -256,7 +265,7 @@ final class Resolver {
         for (int[] x : iv) {
             Locus k = c.loci[x[2]];
             int s = Math.max(x[0], pos);
-            if (x[2] != g && x[1] - s < k.period()) {
+            if (x[2] != g && (x[1] - s < k.period() || !distinct(k, Math.floorMod(s - k.start(), k.period()), s - lo, x[1] - lo, target))) {
                 continue;
             }
             aligner.linear(as, pos - lo, s - lo);
@@ -264,6 +273,33 @@ final class Resolver {
             pos = x[1];
         }
         aligner.linear(as, pos - lo, hi - lo);
+    }
+
+    /**
+     * Whether neighbour k's bases {@code as[from, to)} (entered at {@code phase}) fit its own motif clearly better than the target's
+     * (the target's scores at most half of its own). Only then is it a loop of its own: two loops that
+     * fit the same bases about equally would trade bases between them on a single substitution, where A's
+     * bases, kept as they are, hold them in place.
+     */
+    private boolean distinct(Locus k, int phase, int from, int to, Locus target) {
+        int n = to - from;
+        if (probeText.length < n) {
+            probeText = new byte[Math.max(n, 2 * probeText.length)];
+        }
+        System.arraycopy(as, from, probeText, 0, n);
+        long cells = c.settings.maxCells();
+        probe.reset();
+        probe.loop(motifCodes(k), phase, true);
+        if (!probe.align(probeText, n, cells)) {
+            return false;
+        }
+        int own = probe.score();
+        probe.reset();
+        probe.loop(motifCodes(target), 0, true);
+        if (!probe.align(probeText, n, cells)) {
+            return false;
+        }
+        return 2L * probe.score() <= own;
     }
 
     /** Adds locus h, clipped to [lo, hi) and off the target (which keeps its own bases), if a period is left. */
