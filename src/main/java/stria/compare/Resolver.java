@@ -195,29 +195,56 @@ final class Resolver {
         int b1;
         double purity;
         String note = null;
-        if (bLen == aLen && java.util.Arrays.equals(as, 0, aLen, bs, 0, bLen)) {
+        int shift = bLen - aLen;
+        if (shift == 0 && java.util.Arrays.equals(as, 0, aLen, bs, 0, bLen)) {
             b0 = s;
             b1 = e;
             purity = l.purity();
         } else {
-            // A's own bases go through the same template: where the aligner would cut A otherwise than the
-            // scan did (a locus split by the scan into two periods, say), B is cut the same way and the
-            // difference is carried over, so that only a difference between the two genomes shows
-            template(g, lo, hi);
-            long cells = c.settings.maxCells();
-            if (aligner.align(as, aLen, cells)) {
-                int a0 = aligner.repeatStart();
-                int a1 = aligner.repeatEnd();
-                aligner.align(bs, bLen, cells);
-                b0 = Math.max(0, Math.min(bLen, aligner.repeatStart() + (s - a0)));
-                b1 = Math.max(b0, Math.min(bLen, aligner.repeatEnd() + (e - a1)));
-                purity = aligner.repeatEnd() > aligner.repeatStart() ? aligner.purity() : Double.NaN;
-            } else {
-                // too long to align base by base: the flanks are taken as unchanged
+            // where the two stretches differ by more than substitutions: after an insertion or deletion
+            // they fall out of step, so the in-step prefix and suffix bound the place of every one
+            int n = Math.min(aLen, bLen);
+            int pre = inStep(as, 0, bs, 0, 1, n);
+            int suf = inStep(as, aLen - 1, bs, bLen - 1, -1, n);
+            int dLo = Math.max(0, Math.min(pre, aLen - suf) - STEP_SLACK);
+            int dHi = Math.min(aLen, Math.max(pre, aLen - suf) + STEP_SLACK);
+            if (shift == 0 && pre == n) {
+                // substitutions only
                 b0 = s;
-                b1 = Math.max(s, bLen - (aLen - e));
-                purity = Double.NaN;
-                note = "measured-by-length";
+                b1 = e;
+                purity = calibrated(l, s, e, b0, b1);
+            } else if (dHi <= s - MARGIN) {
+                b0 = s + shift;
+                b1 = e + shift;
+                purity = calibrated(l, s, e, b0, b1);
+            } else if (dLo >= e + MARGIN) {
+                b0 = s;
+                b1 = e;
+                purity = calibrated(l, s, e, b0, b1);
+            } else {
+                // A's window and B's go through the same template: where the aligner would cut A otherwise
+                // than the scan did (a locus split by the scan into two periods, say), B is cut the same way
+                // and the difference is carried over, so that only a difference between the genomes shows.
+                // Outside the window the stretches are in step, B's after it shifted by the length change.
+                int x0 = Math.max(0, Math.min(dLo, s) - MARGIN);
+                int x1 = Math.min(aLen, Math.max(dHi, e) + MARGIN);
+                template(g, lo, lo + x0, lo + x1);
+                long cells = c.settings.maxCells();
+                if (aligner.align(as, x0, x1 - x0, cells)) {
+                    int a0 = aligner.repeatStart() + x0;
+                    int a1 = aligner.repeatEnd() + x0;
+                    double pa = aligner.purity();
+                    aligner.align(bs, x0, x1 + shift - x0, cells);
+                    b0 = Math.max(0, Math.min(bLen, aligner.repeatStart() + x0 + (s - a0)));
+                    b1 = Math.max(b0, Math.min(bLen, aligner.repeatEnd() + x0 + (e - a1)));
+                    purity = b1 > b0 ? clamp(l.purity() + aligner.purity() - pa) : Double.NaN;
+                } else {
+                    // too long to align base by base: the flanks are taken as unchanged
+                    b0 = s;
+                    b1 = Math.max(s, bLen - (aLen - e));
+                    purity = Double.NaN;
+                    note = "measured-by-length";
+                }
             }
         }
         int from;
@@ -242,26 +269,78 @@ final class Resolver {
         return new ComparedLocus(chrom, l, st, c.bName(contig), from, to, plus ? '+' : '-', purity, null, note);
     }
 
+    /** Bases of a window in which more than {@link #STEP_MISMATCHES} differ: the stretches are out of step. */
+    static final int STEP_WINDOW = 16;
+    static final int STEP_MISMATCHES = 4;
+    /** How far before the first window out of step an insertion or deletion may lie. */
+    static final int STEP_SLACK = 2 * STEP_WINDOW;
+    /** Bases of A's and B's stretch beside the target and the place of the differences aligned with them. */
+    static final int MARGIN = 64;
+
     /**
-     * The template for A's stretch {@code [lo, hi)}: A's bases, with the target and every other locus of A
-     * there as loops. A neighbour is clipped to the stretch and off the target; one shorter than its period
-     * after that stays bases.
+     * How many bases x[xi], x[xi + d], ... and y[yi], y[yi + d], ... stay in step (at most n): up to the first
+     * window of {@link #STEP_WINDOW} with more than {@link #STEP_MISMATCHES} differences, or n.
      */
-    private void template(int g, int lo, int hi) {
+    private static int inStep(byte[] x, int xi, byte[] y, int yi, int d, int n) {
+        int diff = 0;
+        for (int i = 0; i < n; i++) {
+            if (x[xi + d * i] != y[yi + d * i]) {
+                diff++;
+            }
+            if (i >= STEP_WINDOW && x[xi + d * (i - STEP_WINDOW)] != y[yi + d * (i - STEP_WINDOW)]) {
+                diff--;
+            }
+            if (diff > STEP_MISMATCHES) {
+                return Math.max(0, i + 1 - STEP_WINDOW);
+            }
+        }
+        return n;
+    }
+
+    private static double clamp(double p) {
+        return Math.max(0, Math.min(1, p));
+    }
+
+    /**
+     * B's purity where its repeat {@code bs[b0, b1)} has A's length or A's bases shifted: A's purity, moved by
+     * the difference between the two repeats aligned alone against the motif.
+     */
+    private double calibrated(Locus l, int s, int e, int b0, int b1) {
+        if (e - s == b1 - b0 && java.util.Arrays.equals(as, s, e, bs, b0, b1)) {
+            return l.purity();
+        }
+        long cells = c.settings.maxCells();
+        probe.reset();
+        probe.loop(motifCodes(l), 0, true);
+        if (!probe.align(as, s, e - s, cells)) {
+            return Double.NaN;
+        }
+        double pa = probe.purity();
+        probe.align(bs, b0, b1 - b0, cells);
+        return clamp(l.purity() + probe.purity() - pa);
+    }
+
+    /**
+     * The template for A's bases {@code [from, hi)} (contig coordinates; {@code as[x - lo]} holds base x):
+     * A's bases, with the target and every other locus of A there as loops. A neighbour is clipped to the
+     * window and off the target; one shorter than its period after that, or one whose bases fit the
+     * target's motif about as well as its own, stays bases.
+     */
+    private void template(int g, int lo, int from, int hi) {
         Locus target = c.loci[g];
         List<int[]> iv = new ArrayList<>();
         iv.add(new int[] {target.start(), target.end(), g});
         int first = c.contigFirst[c.contigOf[g]];
         int last = c.contigFirst[c.contigOf[g] + 1];
-        for (int h = g - 1; h >= first && c.reachEnd[h] > lo; h--) {
-            neighbour(iv, h, target, lo, hi);
+        for (int h = g - 1; h >= first && c.reachEnd[h] > from; h--) {
+            neighbour(iv, h, target, from, hi);
         }
         for (int h = g + 1; h < last && c.loci[h].start() < hi; h++) {
-            neighbour(iv, h, target, lo, hi);
+            neighbour(iv, h, target, from, hi);
         }
         iv.sort((x, y) -> x[0] != y[0] ? Integer.compare(x[0], y[0]) : Integer.compare(x[2], y[2]));
         aligner.reset();
-        int pos = lo;
+        int pos = from;
         for (int[] x : iv) {
             Locus k = c.loci[x[2]];
             int s = Math.max(x[0], pos);
