@@ -34,17 +34,13 @@ class ComparisonTest {
                 int len = LENGTHS[k % LENGTHS.length];
                 System.arraycopy(Pairs.repeat(mo, len), 0, s, at, len);
                 // a flank base that continued the motif would move the locus' true ends
-                s[at - 1] = other(mo.charAt(mo.length() - 1), s[at - 1]);
-                s[at + len] = other(mo.charAt(len % mo.length()), s[at + len]);
+                s[at - 1] = Pairs.differentFrom(mo.charAt(mo.length() - 1), s[at - 1]);
+                s[at + len] = Pairs.differentFrom(mo.charAt(len % mo.length()), s[at + len]);
                 ls.add(Pairs.locus(at, at + len, mo));
             }
             a.add(s);
             loci.add(ls);
         }
-    }
-
-    private static byte other(char avoid, byte b) {
-        return b != avoid ? b : (byte) (avoid == 'A' ? 'C' : 'A');
     }
 
     private List<ComparedLocus> run(List<String> bNames, List<byte[]> b) {
@@ -197,9 +193,9 @@ class ComparisonTest {
         assertThat(l0).isPositive();
         assertThat(l1).isPositive();
         byte[] b0 = a.get(0).clone();
-        b0[l0 + 10] = other((char) b0[l0 + 10], b0[l0 + 10]);
-        b0[l1 + 20] = other((char) b0[l1 + 20], b0[l1 + 20]);
-        b0[r0 + 5] = other((char) b0[r0 + 5], b0[r0 + 5]);
+        b0[l0 + 10] = Pairs.differentFrom((char) b0[l0 + 10], b0[l0 + 10]);
+        b0[l1 + 20] = Pairs.differentFrom((char) b0[l1 + 20], b0[l1 + 20]);
+        b0[r0 + 5] = Pairs.differentFrom((char) b0[r0 + 5], b0[r0 + 5]);
         // two bases gone from inside the killed nearest right anchor: between the next anchor and the locus
         b0 = Pairs.concat(Arrays.copyOfRange(b0, 0, r0 + 12), Arrays.copyOfRange(b0, r0 + 14, b0.length));
         List<ComparedLocus> rows = run(names, List.of(b0, a.get(1)));

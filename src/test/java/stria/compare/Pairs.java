@@ -80,6 +80,40 @@ final class Pairs {
                 2 * (end - start), 1.0);
     }
 
+    /** A contig with its planted loci. */
+    record Planted(byte[] seq, List<Locus> loci) {
+    }
+
+    /**
+     * Random sequence of {@code len} bases with a pure repeat of a random primitive motif (period 1-8,
+     * 12-60 bases) about every {@code every} bases; the bases beside each repeat do not continue it, so
+     * the loci's ends are exact.
+     */
+    static Planted planted(Random r, int len, int every) {
+        byte[] s = random(r, len);
+        List<Locus> ls = new ArrayList<>();
+        int at = 300 + r.nextInt(every);
+        while (at + 400 < len) {
+            int p = 1 + r.nextInt(8);
+            byte[] m;
+            do {
+                m = random(r, p);
+            } while (MotifClass.primitiveRoot(m) != p);
+            String mo = new String(m, StandardCharsets.US_ASCII);
+            int n = Math.max(12, Math.max(2 * p, 12 + r.nextInt(49)));
+            System.arraycopy(repeat(mo, n), 0, s, at, n);
+            s[at - 1] = differentFrom(mo.charAt(p - 1), s[at - 1]);
+            s[at + n] = differentFrom(mo.charAt(n % p), s[at + n]);
+            ls.add(locus(at, at + n, mo));
+            at += n + every / 2 + r.nextInt(every);
+        }
+        return new Planted(s, ls);
+    }
+
+    static byte differentFrom(char avoid, byte b) {
+        return b != avoid ? b : (byte) (avoid == 'A' ? 'C' : 'A');
+    }
+
     static byte[] random(Random r, int n) {
         byte[] b = new byte[n];
         for (int i = 0; i < n; i++) {
