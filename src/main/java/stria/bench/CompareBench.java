@@ -31,7 +31,8 @@ import stria.score.Locus;
  * <p>Usage: {@code java -cp target/stria.jar stria.bench.CompareBench A.fa A.tsv [rounds]}, where A.tsv is
  * {@code stria scan --tsv} output for A. B is A twice over: A itself, and A with background substitutions
  * (0.1 %) and small insertions and deletions (0.01 %, 1-3 bases) drawn from a fixed seed. Rounds (default
- * 3) follow one warm-up round; the median thread CPU time of each step is reported.
+ * 3) follow one warm-up round; the median thread CPU time of each step is reported. The system properties
+ * {@code stria.compare.anchors} and {@code stria.compare.flank} override the anchors per side and the flank.
  */
 public final class CompareBench {
     private CompareBench() {
@@ -83,7 +84,7 @@ public final class CompareBench {
             System.gc();
             long before = used();
             long t0 = tm.getCurrentThreadCpuTime();
-            Comparison.Builder bd = Comparison.builder(CompareSettings.defaults(2.0));
+            Comparison.Builder bd = Comparison.builder(settings());
             for (int c = 0; c < names.size(); c++) {
                 bd.addContig(names.get(c), ContigBytes.of(a.get(c)), loci.getOrDefault(names.get(c), List.of()));
             }
@@ -119,7 +120,7 @@ public final class CompareBench {
                 why.merge(r.note(), 1, Integer::sum);
             }
         }
-        System.out.printf(Locale.ROOT, "%n%s%n", scenario);
+        System.out.printf(Locale.ROOT, "%n%s (%s)%n", scenario, settings());
         System.out.printf(Locale.ROOT, "  build index      %7.2f s CPU  (%d anchors, %.2f a locus, %d distinct words)%n",
                 median(t[0]), f.anchors(), f.anchors() / (double) loci0, f.distinctWords());
         System.out.printf(Locale.ROOT, "  count A          %7.2f s CPU  %7.1f MB/s%n", median(t[1]), bases / 1e6 / median(t[1]));
@@ -137,6 +138,14 @@ public final class CompareBench {
         System.out.println(sb);
         why.entrySet().stream().sorted((x, y) -> y.getValue() - x.getValue())
                 .forEach(e -> System.out.printf(Locale.ROOT, "    %-32s %d%n", e.getKey(), e.getValue()));
+    }
+
+    /** The defaults, or anchors per side and flank from -Dstria.compare.anchors and -Dstria.compare.flank. */
+    private static CompareSettings settings() {
+        CompareSettings d = CompareSettings.defaults(2.0);
+        return new CompareSettings(Integer.getInteger("stria.compare.anchors", d.anchorsPerSide()),
+                Integer.getInteger("stria.compare.flank", d.flank()), d.maxSkip(), d.sampling(), d.minCopies(),
+                d.maxCells());
     }
 
     private static long used() {

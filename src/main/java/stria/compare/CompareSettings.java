@@ -16,8 +16,8 @@ package stria.compare;
  */
 public record CompareSettings(int anchorsPerSide, int flank, int maxSkip, int sampling, double minCopies,
                               long maxCells) {
-    public static final int DEFAULT_ANCHORS_PER_SIDE = 4;
-    public static final int DEFAULT_FLANK = 250;
+    public static final int DEFAULT_ANCHORS_PER_SIDE = 6;
+    public static final int DEFAULT_FLANK = 400;
     public static final int DEFAULT_MAX_SKIP = 20_000;
     public static final int DEFAULT_SAMPLING = 8;
     public static final long DEFAULT_MAX_CELLS = 1L << 30;

@@ -58,11 +58,7 @@ public final class Comparison {
     // B
     private final List<String> bNames = new ArrayList<>();
     private final Map<String, Integer> bIndex = new HashMap<>();
-    final int[] capContig;
-    final boolean[] capPlus;
-    final int[] capStart;
-    final int[] capEnd;
-    final byte[][] cap;
+    final KeptStretches kept;
     private final int ringBits;
     private long bBases;
     private long aBasesCounted;
@@ -95,12 +91,7 @@ public final class Comparison {
         aBases = b.packed;
         table = new AnchorTable(b.words, b.aFwd, n * 2 * m);
         aCounted = new boolean[aNames.size()];
-        capContig = new int[n];
-        Arrays.fill(capContig, -1);
-        capPlus = new boolean[n];
-        capStart = new int[n];
-        capEnd = new int[n];
-        cap = new byte[n][];
+        kept = new KeptStretches(n);
         long longest = 0;
         for (int g = 0; g < n; g++) {
             longest = Math.max(longest, maxSpan(g));
@@ -513,6 +504,16 @@ public final class Comparison {
         bBases += seq.length;
     }
 
+    /** The ring of B's last bases, one for all of B's contigs: an assembly may have many small ones. */
+    private byte[] ring() {
+        if (bRing == null) {
+            bRing = new byte[1 << ringBits];
+        }
+        return bRing;
+    }
+
+    private byte[] bRing;
+
     private int beginB(String name) {
         if (results != null) {
             throw new IllegalStateException("results already taken");
@@ -539,7 +540,7 @@ public final class Comparison {
      */
     private final class BStream implements KmerScanner.Hits {
         private final int contig;
-        private final byte[] ring = new byte[1 << ringBits];
+        private final byte[] ring = ring();
         private final int mask = ring.length - 1;
         private final KmerScanner scanner = new KmerScanner(table, settings.sampling());
         private long fed;
@@ -598,26 +599,8 @@ public final class Comparison {
             }
         }
 
-        /** B's bases [from, to) to locus g, appended to what it has when the start is the same. */
         private void capture(int g, boolean plus, int from, int to) {
-            boolean same = capContig[g] == contig && capPlus[g] == plus && capStart[g] == from;
-            if (same && to <= capEnd[g]) {
-                return;
-            }
-            int keep = same ? capEnd[g] - from : 0;
-            byte[] old = cap[g];
-            byte[] dst = old != null && old.length >= to - from ? old : new byte[to - from];
-            if (keep > 0 && dst != old) {
-                System.arraycopy(old, 0, dst, 0, keep);
-            }
-            for (int p = from + keep; p < to; p++) {
-                dst[p - from] = ring[p & mask];
-            }
-            cap[g] = dst;
-            capContig[g] = contig;
-            capPlus[g] = plus;
-            capStart[g] = from;
-            capEnd[g] = to;
+            kept.keep(g, contig, plus, from, to, ring, mask);
         }
     }
 
@@ -628,6 +611,7 @@ public final class Comparison {
         if (results != null) {
             return results;
         }
+        bRing = null;
         int n = loci.length;
         ComparedLocus[] out = new ComparedLocus[n];
         int block = 1024;
@@ -772,15 +756,10 @@ public final class Comparison {
                 anchors++;
             }
         }
-        long capBytes = 0;
-        for (byte[] b : cap) {
-            if (b != null) {
-                capBytes += 16 + b.length;
-            }
-        }
+        long capBytes = kept.bytes();
         int n = loci.length;
         // per-locus arrays of this class (references at 4 bytes); the Locus objects are the caller's
-        long perLocus = 8L * m + 49;
+        long perLocus = 8L * m + 36;
         return new Figures(n, anchors, table.distinct(), table.bytes(), aBases.bytes() + perLocus * n,
                 capBytes, aBasesCounted, bBases);
     }

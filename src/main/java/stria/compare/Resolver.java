@@ -92,7 +92,7 @@ final class Resolver {
         int rA = c.anchorPos[g * 2 * m + m + candJ[bestR]];
         int lo = Math.min(lB, rB);
         int hi = Math.max(lB, rB) + Kmer.K;
-        if (c.capContig[g] != contig || c.capPlus[g] != plus || c.capStart[g] > lo || c.capEnd[g] < hi) {
+        if (!c.kept.covers(g, contig, plus, lo, hi)) {
             return ComparedLocus.unplaced(chrom, l, "stretch-not-kept");
         }
         return measure(g, chrom, l, contig, plus, lA, rA, lB, rB);
@@ -179,14 +179,16 @@ final class Resolver {
         if (bs.length < bLen) {
             bs = new byte[Math.max(bLen, 2 * bs.length)];
         }
-        byte[] kept = c.cap[g];
-        int cs = c.capStart[g];
         if (plus) {
-            System.arraycopy(kept, lB + Kmer.K - cs, bs, 0, bLen);
+            c.kept.copy(g, lB + Kmer.K, bLen, bs);
         } else {
-            for (int i = 0; i < bLen; i++) {
-                int x = kept[lB - 1 - i - cs];
-                bs[i] = (byte) (x >= 0 && x <= 3 ? 3 - x : Bases.BREAK);
+            c.kept.copy(g, rB + Kmer.K, bLen, bs);
+            // read on A's strand: reversed and complemented
+            for (int i = 0, j = bLen - 1; i <= j; i++, j--) {
+                byte x = bs[i];
+                byte y = bs[j];
+                bs[i] = (byte) (y >= 0 && y <= 3 ? 3 - y : Bases.BREAK);
+                bs[j] = (byte) (x >= 0 && x <= 3 ? 3 - x : Bases.BREAK);
             }
         }
         int s = l.start() - lo;

@@ -206,6 +206,18 @@ class ComparisonTest {
     }
 
     @Test
+    void anNInBsRepeatIsASubstitutionThere() {
+        Locus l = at(0, 3);
+        byte[] b0 = a.get(0).clone();
+        b0[l.start() + 9] = 'N';
+        b0[l.end() + 3] = 'n';
+        ComparedLocus row = run(names, List.of(b0, a.get(1))).get(index(0, 3));
+        assertThat(row.status()).isEqualTo(Status.SAME);
+        assertThat(row.otherStart()).isEqualTo(l.start());
+        assertThat(row.otherPurity()).isLessThan(row.locus().purity());
+    }
+
+    @Test
     void lociOfBWithoutACounterpartAreNew() {
         Locus l3 = at(0, 3);
         byte[] ins = Pairs.repeat("TC", 40);
