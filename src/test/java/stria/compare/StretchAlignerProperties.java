@@ -59,7 +59,7 @@ class StretchAlignerProperties {
         for (int i = 0; i < rep.length; i++) {
             rep[i] = motif[i % period];
         }
-        byte[] text = concat(left, rep, right);
+        byte[] text = Pairs.concat(left, rep, right);
         // the flanks must not continue the repeat, or its extent is a matter of taste
         if (left[left.length - 1] == motif[period - 1] || right[0] == motif[rep.length % period]) {
             return;
@@ -88,7 +88,7 @@ class StretchAlignerProperties {
         al.loop(codes("CA"), 0, false);
         al.loop(codes("GA"), 0, true);
         al.linear(flank, 0, flank.length);
-        byte[] text = concat(flank, ca, codes("CACA"), ga, flank);
+        byte[] text = Pairs.concat(flank, ca, codes("CACA"), ga, flank);
         assertThat(al.align(text, text.length, 1L << 30)).isTrue();
         assertThat(al.repeatEnd() - al.repeatStart()).isEqualTo(ga.length);
         assertThat(al.repeatStart()).isEqualTo(flank.length + ca.length + 4);
@@ -102,7 +102,7 @@ class StretchAlignerProperties {
         al.linear(flank, 0, flank.length);
         al.loop(codes("CAG"), 0, true);
         al.linear(flank, 0, flank.length);
-        byte[] text = concat(flank, flank);
+        byte[] text = Pairs.concat(flank, flank);
         assertThat(al.align(text, text.length, 1L << 30)).isTrue();
         assertThat(al.repeatStart()).isEqualTo(al.repeatEnd()).isEqualTo(flank.length);
         assertThat(al.score()).isEqualTo(MATCH * text.length);
@@ -280,19 +280,5 @@ class StretchAlignerProperties {
             b[i] = (byte) "ACGT".indexOf(s.charAt(i));
         }
         return b;
-    }
-
-    static byte[] concat(byte[]... parts) {
-        int n = 0;
-        for (byte[] p : parts) {
-            n += p.length;
-        }
-        byte[] out = new byte[n];
-        int at = 0;
-        for (byte[] p : parts) {
-            System.arraycopy(p, 0, out, at, p.length);
-            at += p.length;
-        }
-        return out;
     }
 }
