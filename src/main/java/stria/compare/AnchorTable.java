@@ -98,10 +98,6 @@ final class AnchorTable {
         return (int) (((hash >>> 32) * capacity) >>> 32);
     }
 
-    int capacity() {
-        return capacity;
-    }
-
     int distinct() {
         return distinct;
     }

@@ -31,27 +31,4 @@ final class Kmer {
     static boolean sampled(long hash, int sampling) {
         return (hash & (sampling - 1)) == 0;
     }
-
-    /** Reverse complement of a packed word. */
-    static long reverseComplement(long word) {
-        long r = 0;
-        for (int i = 0; i < K; i++) {
-            r = (r << 2) | (3 - (word & 3));
-            word >>>= 2;
-        }
-        return r;
-    }
-
-    /** The packed word of {@code codes[from, from + K)}, or -1 when one of them is not A, C, G or T. */
-    static long pack(byte[] codes, int from) {
-        long w = 0;
-        for (int i = from; i < from + K; i++) {
-            int c = codes[i];
-            if (c < 0 || c > 3) {
-                return -1;
-            }
-            w = (w << 2) | c;
-        }
-        return w;
-    }
 }

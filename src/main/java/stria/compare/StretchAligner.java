@@ -105,10 +105,6 @@ final class StretchAligner {
         }
     }
 
-    int nodes() {
-        return nodes;
-    }
-
     private void add(byte l) {
         if (nodes == letter.length) {
             letter = Arrays.copyOf(letter, 2 * nodes);
