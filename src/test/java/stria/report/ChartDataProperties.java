@@ -20,7 +20,8 @@ import net.jqwik.api.constraints.DoubleRange;
 import net.jqwik.api.constraints.IntRange;
 import net.jqwik.api.constraints.Scale;
 
-import stria.out.ResultHeader;
+import stria.io.ContigInfo;
+import stria.testutil.ResultFixtures;
 
 /**
  * The data behind the report's charts (bins, series, tables) against brute force on random results, with
@@ -35,7 +36,7 @@ class ChartDataProperties {
         Random rnd = new Random(seed);
         int n = 1 + rnd.nextInt(rnd.nextBoolean() ? 4 : 30);
         boolean regions = rnd.nextInt(4) == 0;
-        List<ResultHeader.Contig> contigs = new ArrayList<>();
+        List<ContigInfo> contigs = new ArrayList<>();
         List<long[]> scanned = new ArrayList<>();
         List<ContigLoci> loci = new ArrayList<>();
         List<String> motifClasses = new ArrayList<>();
@@ -44,7 +45,7 @@ class ChartDataProperties {
         for (int c = 0; c < n; c++) {
             int len = 1 + rnd.nextInt(rnd.nextBoolean() ? 3_000 : 40_000);
             lengths[c] = len;
-            contigs.add(new ResultHeader.Contig("c" + c, len));
+            contigs.add(new ContigInfo("c" + c, len));
             if (regions) {
                 // two disjoint spans, either may be empty
                 int a = rnd.nextInt(len + 1), b = a + rnd.nextInt(len - a + 1), d = b + rnd.nextInt(len - b + 1);
