@@ -9,7 +9,7 @@ import stria.score.Locus;
  */
 public final class LocusFormat {
     public static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
-            + "\tmismatches\tinsertions\tdeletions\tscore\tentropy";
+            + "\tmismatches\tinsertions\tdeletions\tscore\tentropy\tsubunit_period\tsubunits";
 
     private LocusFormat() {
     }
@@ -31,6 +31,12 @@ public final class LocusFormat {
         sb.append('\t').append(l.mismatches()).append('\t').append(l.insertions()).append('\t')
                 .append(l.deletions()).append('\t').append(l.score()).append('\t');
         fixed(sb, l.entropy(), 3);
+        sb.append('\t');
+        if (l.subunits() > 0) {
+            sb.append(l.subunitPeriod()).append('\t').append(l.subunits());
+        } else {
+            sb.append('\t');
+        }
         sb.append('\n');
     }
 
