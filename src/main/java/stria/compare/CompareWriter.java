@@ -49,7 +49,11 @@ public final class CompareWriter implements Consumer<ComparedLocus> {
     public void accept(ComparedLocus r) {
         sb.setLength(0);
         CompareRow.tsv(sb, r);
-        String row = sb.substring(0, sb.length() - 1);
+        row(sb.substring(0, sb.length() - 1));
+    }
+
+    /** A row as its TSV text (without line end), as {@code merge} copies it. */
+    public void row(String row) {
         line(tsv, row);
         String[] f = row.split("\t", -1);
         summary.add(f);
