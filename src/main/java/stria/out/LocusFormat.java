@@ -35,7 +35,7 @@ public final class LocusFormat {
     }
 
     /** Copies as length / period, rounded half up to 2 decimals from the exact fraction. */
-    private static void copies(StringBuilder sb, Locus l) {
+    static void copies(StringBuilder sb, Locus l) {
         long len = l.length();
         long p = l.period();
         long hundredths = (len * 200 + p) / (2 * p);
