@@ -143,7 +143,8 @@ public final class ShardMerge {
     public void writeTo(OutputStream out, String command) {
         try {
             Part first = parts.get(0);
-            for (String l : first.leading) {
+            // GFF3 pragmas list every contig: made again from the one contig list kept
+            for (String l : format == ResultFormat.GFF ? Gff3.pragmas(contigs) : first.leading) {
                 writeLine(out, l);
             }
             for (String l : header(command).lines()) {
@@ -307,7 +308,6 @@ public final class ShardMerge {
         }
         if (!keepContigs) {
             h = new ResultHeader(h.version(), h.command(), h.settings(), List.of(), h.shard(), h.regions());
-            // the pragmas list every contig too; equal #input lines make them equal, so the first shard's serve
             leading = format == ResultFormat.GFF ? List.of(Gff3.VERSION_PRAGMA) : leading;
         }
         return new Part(file, h, inputLine, format.columnRow() != null ? firstOther : null, format, id,
