@@ -16,6 +16,7 @@ import stria.testutil.Cli;
  * longest first, and the most-changed loci of a hand-made compare result (columns found by name, in another
  * order and with a column more) are ranked by the size of the change.
  */
+@org.junit.jupiter.api.Tag("slow")
 class ReportGapsAndTablesTest {
     @TempDir
     Path dir;
