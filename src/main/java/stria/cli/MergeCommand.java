@@ -42,6 +42,14 @@ public final class MergeCommand implements Callable<Integer> {
         @Option(names = "--tsv", paramLabel = "OUT",
                 description = "merge TSV results into OUT (.gz: BGZF; -: standard output)")
         String tsv;
+
+        @Option(names = "--gff", paramLabel = "OUT",
+                description = "merge GFF3 results into OUT (.gz: BGZF with a tabix index; -: standard output)")
+        String gff;
+
+        @Option(names = "--catalog", paramLabel = "OUT",
+                description = "merge STR catalogues into OUT (.gz: BGZF; -: standard output)")
+        String catalog;
     }
 
     @ArgGroup(exclusive = true, multiplicity = "1")
@@ -77,8 +85,14 @@ public final class MergeCommand implements Callable<Integer> {
             throw new ParameterException(spec.commandLine(), "--a-bed, --b-bed and --summary are for the parts of a "
                     + "comparison; " + files.get(0) + " is a scan result");
         }
-        ResultFormat format = target.bed != null ? ResultFormat.BED : ResultFormat.TSV;
-        String out = format == ResultFormat.BED ? target.bed : target.tsv;
+        ResultFormat format = target.bed != null ? ResultFormat.BED : target.tsv != null ? ResultFormat.TSV
+                : target.gff != null ? ResultFormat.GFF : ResultFormat.CATALOG;
+        String out = switch (format) {
+            case BED -> target.bed;
+            case TSV -> target.tsv;
+            case GFF -> target.gff;
+            case CATALOG -> target.catalog;
+        };
         AtomicOutputs.refuseInputs(List.of(out), files);
         ShardMerge merge = ShardMerge.check(files, format);
         String command = commandLine();
@@ -86,6 +100,8 @@ public final class MergeCommand implements Callable<Integer> {
             OutputStream stream = outputs.open(out);
             if (format == ResultFormat.BED) {
                 Tabix.indexOnCommit(outputs, out);
+            } else if (format == ResultFormat.GFF) {
+                Tabix.indexGffOnCommit(outputs, out);
             }
             merge.writeTo(stream, command);
             try {

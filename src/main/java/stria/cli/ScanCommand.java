@@ -11,6 +11,9 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import stria.io.Region;
 import stria.out.AtomicOutputs;
+import stria.out.CatalogLines;
+import stria.out.Gff3;
+import stria.out.GffLines;
 import stria.out.LocusSink;
 import stria.out.MaskedFastaWriter;
 import stria.out.ResultFormat;
@@ -34,7 +37,7 @@ import stria.shard.ShardId;
             "",
             "By default loci are imperfect repeats built from exact runs and extended while they still match "
                 + "their consensus motif; --exact reports the exact runs (maximal repetitions) instead.",
-            "Output is BED on standard output unless --bed or --tsv name files; coordinates are 0-based, end "
+            "Output is BED on standard output unless --bed, --tsv, --gff or --catalog name files; coordinates are 0-based, end "
                 + "exclusive, sorted by input contig order, start, end and period. Files ending in .gz are "
                 + "written block-gzipped (BGZF); a BED.gz gets a tabix index (.tbi) beside it.",
             ""},
@@ -62,6 +65,24 @@ public final class ScanCommand implements Callable<Integer> {
     @Option(names = "--tsv", paramLabel = "FILE", description = "Write the TSV table with every figure here "
             + "(- for standard output).")
     String tsv;
+
+    @Option(names = "--gff", paramLabel = "FILE", description = "Also write the loci as GFF3 with Sequence "
+            + "Ontology types by period: 1 tandem_repeat, 2-10 microsatellite, 11-40 minisatellite, longer "
+            + "satellite_DNA (- for standard output; .gz gives BGZF with a tabix index).")
+    String gff;
+
+    @Option(names = "--catalog", paramLabel = "FILE", description = "Also write an STR catalogue: one row per "
+            + "locus up to --catalog-max-period, with a stable id and the genome's bases beside it (TSV; - for "
+            + "standard output; .gz gives BGZF).")
+    String catalog;
+
+    @Option(names = "--catalog-max-period", paramLabel = "N", description = "Largest period in the catalogue "
+            + "(default: " + CatalogLines.DEFAULT_MAX_PERIOD + ").")
+    int catalogMaxPeriod = CatalogLines.DEFAULT_MAX_PERIOD;
+
+    @Option(names = "--flank", paramLabel = "N", description = "Bases of each flank in the catalogue (default: "
+            + CatalogLines.DEFAULT_FLANK + ", at most " + CatalogLines.MAX_FLANK + "; shorter at contig ends).")
+    int flank = CatalogLines.DEFAULT_FLANK;
 
     @Option(names = "--region", paramLabel = "REGION", description = "Scan only this region, e.g. ctg2 or "
             + "ctg2:1,001-2,000 (1-based, inclusive; repeatable). Loci starting inside are reported whole. Uses "
@@ -106,11 +127,18 @@ public final class ScanCommand implements Callable<Integer> {
         Consumer<String> warn = quiet ? m -> { } : m -> System.err.println("stria: warning: " + m);
         try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs()) {
             ScanPlan plan = ScanPlan.of(genome, selection(genome));
-            AtomicOutputs.refuseInputs(Arrays.asList(bed, tsv, masked), inputs);
-            String bedPath = bed == null && tsv == null ? "-" : bed;
-            if ("-".equals(bedPath) && "-".equals(tsv)) {
+            AtomicOutputs.refuseInputs(Arrays.asList(bed, tsv, masked, gff, catalog), inputs);
+            String bedPath = bed == null && tsv == null && gff == null && catalog == null ? "-" : bed;
+            List<String> toStdout = new ArrayList<>();
+            String[][] named = {{"--bed", bedPath}, {"--tsv", tsv}, {"--gff", gff}, {"--catalog", catalog}};
+            for (String[] o : named) {
+                if ("-".equals(o[1])) {
+                    toStdout.add(o[0]);
+                }
+            }
+            if (toStdout.size() > 1) {
                 throw new CommandLine.ParameterException(spec.commandLine(),
-                        "--bed and --tsv cannot both write to standard output");
+                        String.join(" and ", toStdout) + " cannot all write to standard output");
             }
             List<String> header = plan.header(Main.VERSION, commandText(), settings).lines();
             List<LocusSink> sinks = new ArrayList<>();
@@ -120,6 +148,18 @@ public final class ScanCommand implements Callable<Integer> {
             }
             if (tsv != null) {
                 sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header));
+            }
+            if (gff != null) {
+                List<String> lines = new ArrayList<>(Gff3.pragmas(genome.contigs()));
+                lines.addAll(header);
+                sinks.add(resultWriter(outputs, gff, new GffLines(), null, lines));
+                Tabix.indexGffOnCommit(outputs, gff);
+            }
+            if (catalog != null) {
+                CatalogLines rows = new CatalogLines(catalogMaxPeriod, flank);
+                List<String> lines = new ArrayList<>(header);
+                lines.addAll(rows.headerLines());
+                sinks.add(resultWriter(outputs, catalog, rows, CatalogLines.COLUMNS, lines));
             }
             if (masked != null) {
                 sinks.add(new MaskedFastaWriter(outputs.open(masked), maskStyle.mode));
@@ -136,6 +176,13 @@ public final class ScanCommand implements Callable<Integer> {
     private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultFormat format,
                                              List<String> header) {
         ResultWriter w = new ResultWriter(outputs.open(path), path, format);
+        w.header(header);
+        return w;
+    }
+
+    private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultWriter.Lines lines,
+                                             String columnRow, List<String> header) {
+        ResultWriter w = new ResultWriter(outputs.open(path), path, lines, columnRow);
         w.header(header);
         return w;
     }
@@ -167,6 +214,9 @@ public final class ScanCommand implements Callable<Integer> {
     /** Checks the options (usage errors, exit 2) and builds the settings through {@link ScanOptions}. */
     ScanSettings settings() {
         require(shard == null || regions.isEmpty(), "--shard and --region cannot be combined");
+        require(catalogMaxPeriod >= 1, "--catalog-max-period must be at least 1 (got " + catalogMaxPeriod + ")");
+        require(flank >= 0 && flank <= CatalogLines.MAX_FLANK, "--flank must be 0 to " + CatalogLines.MAX_FLANK
+                + " (got " + flank + ")");
         require(masked == null || (shard == null && regions.isEmpty()),
                 "--masked writes whole genomes: it cannot be combined with --shard or --region");
         return scanOptions.settings(spec.commandLine());

@@ -34,7 +34,8 @@ public final class LocusFormat {
         sb.append('\n');
     }
 
-    private static void copies(StringBuilder sb, Locus l) {
+    /** Copies as length / period, 2 decimals. */
+    static void copies(StringBuilder sb, Locus l) {
         copies(sb, l.length(), l.period());
     }
 

@@ -6,6 +6,8 @@ import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 import stria.StriaException;
+import stria.io.ContigBytes;
+import stria.io.Region;
 import stria.score.Locus;
 
 /**
@@ -17,14 +19,36 @@ public final class ResultWriter implements LocusSink {
 
     private final OutputStream out;
     private final String name;
-    private final ResultFormat format;
+    private final Lines lines;
+    private final String columnRow;
     private final StringBuilder buf = new StringBuilder(BLOCK);
+
+    /** The text of a locus in one format; told each stretch's bases first, for formats that quote them. */
+    public interface Lines {
+        /** Appends the line of one locus, line end included. */
+        void append(StringBuilder sb, String contig, Locus locus);
+
+        /** The loci of {@code stretch} follow; {@code seq} is as {@link LocusSink#begin} describes it. */
+        default void begin(Region stretch, ContigBytes seq) {
+        }
+
+        /** As {@link LocusSink#reach}. */
+        default int reach() {
+            return 0;
+        }
+    }
 
     /** @param name the output as the user named it, for messages */
     public ResultWriter(OutputStream out, String name, ResultFormat format) {
+        this(out, name, format::append, format.columnRow());
+    }
+
+    /** A writer of other lines: {@code columnRow} (or null) follows the header lines. */
+    public ResultWriter(OutputStream out, String name, Lines lines, String columnRow) {
         this.out = out;
         this.name = name;
-        this.format = format;
+        this.lines = lines;
+        this.columnRow = columnRow;
     }
 
     /** Writes the {@code #} lines and, for TSV, the column row. */
@@ -32,15 +56,25 @@ public final class ResultWriter implements LocusSink {
         for (String l : lines) {
             buf.append(l).append('\n');
         }
-        if (format.columnRow() != null) {
-            buf.append(format.columnRow()).append('\n');
+        if (columnRow != null) {
+            buf.append(columnRow).append('\n');
         }
         write();
     }
 
     @Override
+    public int reach() {
+        return lines.reach();
+    }
+
+    @Override
+    public void begin(Region stretch, ContigBytes seq) {
+        lines.begin(stretch, seq);
+    }
+
+    @Override
     public void locus(String contig, Locus l) {
-        format.append(buf, contig, l);
+        lines.append(buf, contig, l);
         if (buf.length() > BLOCK) {
             write();
         }

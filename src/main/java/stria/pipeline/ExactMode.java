@@ -81,6 +81,10 @@ final class ExactMode implements ScanMode {
                         loci.add(ExactLocus.of(seq, s, e, p));
                     }
                 }
+                if (ScanMode.reachLeavesContext(loci, out.reach(), plan, len)) {
+                    throw new NeedMoreContextException("the flanks of a locus of " + unit.region()
+                            + " reach past the context");
+                }
                 for (Locus l : loci) {
                     out.locus(name, l);
                 }

@@ -10,6 +10,7 @@ import java.util.concurrent.Semaphore;
 import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
 import stria.StriaException;
+import stria.io.ContigBytes;
 import stria.out.LocusSink;
 import stria.score.NeedMoreContextException;
 
@@ -212,7 +213,9 @@ public final class GenomeScan {
     private void consume(Unit w, WindowRunner runner, ExecutorService pool, LocusSink out, Stores stores)
             throws InterruptedException {
         ScanUnit u = w.unit();
-        out.begin(u.region(), w.store());
+        // the sinks read the bases through this view, which follows the context when it is widened
+        Current view = new Current(w.store());
+        out.begin(u.region(), view);
         WindowPlan plan = w.windows().plan;
         ScanMode.Pass pass = mode.pass(u, w.store(), plan, out);
         w.windows().stitch(pass, k -> found(u, plan, k));
@@ -235,16 +238,41 @@ public final class GenomeScan {
             }
             store = stores.open(u, context);
             store.fill(store.end);
+            view.store = store;
             WindowPlan wider = plan(context);
             pass = mode.pass(u, store, wider, out);
             WindowRunner.Windows again = runner.windows(wider, null);
             runner.start(store, again);
             again.stitch(pass, k -> { });
         }
+        out.end(u.region(), view);
         if (store != w.store()) {
             stores.close(store);
         }
-        out.end(u.region(), w.store());
+    }
+
+    /** The bases of the context a unit's loci are delivered from: the first, or the last widened one. */
+    private static final class Current implements ContigBytes {
+        volatile ContigStore store;
+
+        Current(ContigStore store) {
+            this.store = store;
+        }
+
+        @Override
+        public int length() {
+            return store.length();
+        }
+
+        @Override
+        public void copy(int from, int to, byte[] dst, int off) {
+            store.copy(from, to, dst, off);
+        }
+
+        @Override
+        public byte[] array() {
+            return store.array();
+        }
     }
 
     /** Progress, in one place: window {@code k} of the first pass over a unit has been stitched. */

@@ -98,6 +98,7 @@ final class ImperfectMode implements ScanMode {
                         all.addAll(loci);
                     }
                 }
+                more |= !stream && ScanMode.reachLeavesContext(all, out.reach(), plan, unit.contig().length());
                 if (more) {
                     throw new NeedMoreContextException("a locus of " + unit.region() + " may reach past the context");
                 }

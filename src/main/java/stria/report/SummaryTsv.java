@@ -19,7 +19,8 @@ public final class SummaryTsv {
             "row per contig in input order.%n" +
             "  level          genome or contig%n" +
             "  name           contig name ('.' on the genome row)%n" +
-            "  bases_scanned  contig length, or its bases inside #region spans%n" +
+            "  bases_scanned  contig length, or its bases inside #region spans; without%n" +
+            "                 the N gaps when --genome is given%n" +
             "  loci           number of loci%n" +
             "  repeat_bases   bases inside at least one locus (overlaps count once)%n" +
             "  repeat_share   repeat_bases / bases_scanned, 6 decimals%n" +

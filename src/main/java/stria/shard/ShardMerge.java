@@ -8,6 +8,7 @@ import java.util.Comparator;
 import java.util.List;
 import stria.StriaException;
 import stria.io.ContigInfo;
+import stria.out.Gff3;
 import stria.out.ResultFormat;
 import stria.out.ResultHeader;
 import stria.out.ResultInput;
@@ -23,11 +24,17 @@ import stria.out.ResultInput;
  */
 public final class ShardMerge {
 
-    /** The first line of a TSV result after the {@code #} lines. */
-    private static final String TSV_COLUMNS_START = "chrom\t";
+    /** The {@code #} lines of the result header; others (a format's own) are copied from the first shard. */
+    private static final List<String> HEADER_PREFIXES = List.of(ResultHeader.PREFIX_TOOL,
+            ResultHeader.PREFIX_COMMAND, ResultHeader.PREFIX_SETTINGS, ResultHeader.PREFIX_INPUT,
+            ResultHeader.PREFIX_CONTIG, ResultHeader.PREFIX_SHARD, ResultHeader.PREFIX_REGION);
 
-    /** What the header of one shard result says. */
-    record Part(String file, ResultHeader header, String inputLine, String columns, ResultFormat format, ShardId id) {
+    /**
+     * What the header of one shard result says. {@code leading} are the lines before the {@code #stria} line
+     * (GFF3 pragmas), {@code extra} the format's own {@code #} lines after the result header.
+     */
+    record Part(String file, ResultHeader header, String inputLine, String columns, ResultFormat format, ShardId id,
+                List<String> leading, List<String> extra) {
         int k() {
             return id.k();
         }
@@ -70,7 +77,7 @@ public final class ShardMerge {
         }
         if (first.format != format) {
             throw new StriaException(first.file + " is a " + first.format.name() + " result, not "
-                    + format.name() + ": merge it with --" + first.format.name().toLowerCase(java.util.Locale.ROOT));
+                    + format.name() + ": merge it with " + first.format.option());
         }
         for (Part p : parts) {
             if (p.n() != first.n()) {
@@ -94,6 +101,11 @@ public final class ShardMerge {
             }
             if (p.columns != null && !p.columns.equals(first.columns)) {
                 throw new StriaException(first.file + " and " + p.file + " have different TSV columns");
+            }
+            // the pragmas follow from the contigs, equal by the #input check
+            if (!p.extra.equals(first.extra)) {
+                throw new StriaException(first.file + " and " + p.file + " were written with different output "
+                        + "settings (their own # lines differ)");
             }
         }
         Part[] byK = new Part[first.n() + 1];
@@ -130,13 +142,21 @@ public final class ShardMerge {
     /** Writes the merged result (header, TSV column row, data lines of shards 1..n) to {@code out}. */
     public void writeTo(OutputStream out, String command) {
         try {
+            Part first = parts.get(0);
+            // GFF3 pragmas list every contig: made again from the one contig list kept
+            for (String l : format == ResultFormat.GFF ? Gff3.pragmas(contigs) : first.leading) {
+                writeLine(out, l);
+            }
             for (String l : header(command).lines()) {
                 writeLine(out, l);
             }
-            if (format == ResultFormat.TSV) {
-                writeLine(out, parts.get(0).columns);
+            for (String l : first.extra) {
+                writeLine(out, l);
             }
-            Order order = new Order(contigs);
+            if (format.columnRow() != null) {
+                writeLine(out, first.columns);
+            }
+            Order order = new Order(contigs, format);
             for (Part p : parts) {
                 copyData(p, out, order);
             }
@@ -156,20 +176,22 @@ public final class ShardMerge {
         private long lastStart = -1;
         private String lastLine = "";
         private String lastFile = "";
+        private final ResultFormat format;
 
-        Order(List<ContigInfo> contigs) {
+        Order(List<ContigInfo> contigs, ResultFormat format) {
+            this.format = format;
             for (int i = 0; i < contigs.size(); i++) {
-                rank.put(contigs.get(i).name(), i);
+                rank.put(format.contigText(contigs.get(i).name()), i);
             }
         }
 
         void check(String file, String line) {
-            int t1 = line.indexOf('\t');
-            int t2 = t1 < 0 ? -1 : line.indexOf('\t', t1 + 1);
-            Integer r = t2 < 0 ? null : rank.get(line.substring(0, t1));
+            String[] f = line.split("\t", Math.max(format.contigColumn(), format.startColumn()) + 2);
+            boolean enough = f.length > Math.max(format.contigColumn(), format.startColumn()) + 1;
+            Integer r = enough ? rank.get(f[format.contigColumn()]) : null;
             long start;
             try {
-                start = r == null ? -1 : Long.parseLong(line.substring(t1 + 1, t2));
+                start = r == null ? -1 : Long.parseLong(f[format.startColumn()]);
             } catch (NumberFormatException e) {
                 start = -1;
             }
@@ -203,7 +225,7 @@ public final class ShardMerge {
                         continue;
                     }
                     inHeader = false;
-                    if (p.format == ResultFormat.TSV) {
+                    if (p.format.columnRow() != null) {
                         continue; // the column row
                     }
                 }
@@ -229,6 +251,9 @@ public final class ShardMerge {
 
     private static Part readPart(String file, boolean keepContigs) {
         List<String> lines = new ArrayList<>();
+        List<String> leading = new ArrayList<>();
+        List<String> extra = new ArrayList<>();
+        boolean started = false;
         String firstOther = null;
         try (ResultInput r = ResultInput.open(file, StandardCharsets.ISO_8859_1)) {
             String line;
@@ -238,6 +263,12 @@ public final class ShardMerge {
                     break;
                 }
                 lines.add(line);
+                started |= line.startsWith(ResultHeader.PREFIX_TOOL);
+                if (!started) {
+                    leading.add(line);
+                } else if (HEADER_PREFIXES.stream().noneMatch(line::startsWith)) {
+                    extra.add(line);
+                }
             }
         }
         ResultHeader h;
@@ -267,11 +298,20 @@ public final class ShardMerge {
         } catch (IllegalArgumentException e) {
             throw new StriaException(file + " has a damaged #shard line: " + h.shard());
         }
-        boolean tsv = firstOther != null && firstOther.startsWith(TSV_COLUMNS_START);
+        ResultFormat format = ResultFormat.BED;
+        if (!leading.isEmpty() && leading.get(0).equals(Gff3.VERSION_PRAGMA)) {
+            format = ResultFormat.GFF;
+        } else if (firstOther != null && firstOther.startsWith(ResultFormat.TSV.columnRow().split("\t")[0] + "\t")) {
+            format = ResultFormat.TSV;
+        } else if (firstOther != null && firstOther.startsWith("id\tchrom\t")) {
+            format = ResultFormat.CATALOG;
+        }
         if (!keepContigs) {
             h = new ResultHeader(h.version(), h.command(), h.settings(), List.of(), h.shard(), h.regions());
+            leading = format == ResultFormat.GFF ? List.of(Gff3.VERSION_PRAGMA) : leading;
         }
-        return new Part(file, h, inputLine, tsv ? firstOther : null, tsv ? ResultFormat.TSV : ResultFormat.BED, id);
+        return new Part(file, h, inputLine, format.columnRow() != null ? firstOther : null, format, id,
+                List.copyOf(leading), List.copyOf(extra));
     }
 
     /** 1, 3, 4, 5, 9 as "1, 3-5, 9". */
