@@ -51,6 +51,9 @@ public final class Main implements Runnable {
         cl.setExecutionExceptionHandler(Main::onError);
         cl.setParameterExceptionHandler(Main::onUsageError);
         cl.setCaseInsensitiveEnumValuesAllowed(true);
+        // every decimal option of every command, present and future: finite numbers only
+        cl.registerConverter(Double.class, new FiniteNumber());
+        cl.registerConverter(double.class, new FiniteNumber());
         cl.setUsageHelpLongOptionsMaxWidth(28);
         return cl;
     }
