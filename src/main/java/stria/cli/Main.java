@@ -31,6 +31,8 @@ public final class Main implements Runnable {
     }
 
     public static void main(String[] args) {
+        // a process of its own: stdout failures can be told by their cause (see StandardOutput)
+        stria.out.StandardOutput.useDescriptor();
         System.exit(run(args));
     }
 
@@ -38,7 +40,13 @@ public final class Main implements Runnable {
     public static int run(String... args) {
         CommandLine cl = commandLine();
         try {
-            return cl.execute(args);
+            int code = cl.execute(args);
+            if (code == 0 && System.out.checkError()) {
+                // help, version or any text that went through System.out, whose errors it keeps to itself
+                System.err.println("stria: cannot write standard output (closed, full or its reader gone)");
+                return 1;
+            }
+            return code;
         } catch (OutOfMemoryError e) {
             // thrown on the main thread it passes the execution handler, which sees only exceptions
             System.err.println(OUT_OF_MEMORY);

@@ -56,11 +56,10 @@ public final class MergeCommand implements Callable<Integer> {
     public Integer call() {
         ResultFormat format = target.bed != null ? ResultFormat.BED : ResultFormat.TSV;
         String out = format == ResultFormat.BED ? target.bed : target.tsv;
-        AtomicOutputs.refuseInputs(List.of(out), files);
-        ShardMerge merge = ShardMerge.check(files, format);
-        String command = commandLine();
-        try (AtomicOutputs outputs = new AtomicOutputs()) {
+        try (AtomicOutputs outputs = new AtomicOutputs(files)) {
             OutputStream stream = outputs.open(out);
+            ShardMerge merge = ShardMerge.check(files, format);
+            String command = commandLine();
             if (format == ResultFormat.BED) {
                 Tabix.indexOnCommit(outputs, out);
             }

@@ -1,5 +1,6 @@
 package stria.cli;
 
+import java.io.OutputStream;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -54,20 +55,23 @@ public final class ReportCommand implements Callable<Integer> {
         if (results.stream().filter("-"::equals).count() > 1) {
             throw new ParameterException(spec.commandLine(), "standard input (-) can be read only once");
         }
-        ResultSet r = ResultReader.read(results);
-        Summary s = Summary.of(r);
-        if (!r.missingShards().isEmpty()) {
-            System.err.println("stria report: warning: shards " + r.missingShards() + " of "
-                    + r.shards().get(0).n() + " are missing; the report covers only the shards given");
-        }
-        if (html != null) {
-            try (AtomicOutputs outs = new AtomicOutputs()) {
-                HtmlReport.write(r, s, outs.open(html));
-                outs.commit();
+        // outputs are checked against the results (and each other) before anything is read
+        try (AtomicOutputs outs = new AtomicOutputs(results)) {
+            OutputStream page = html == null ? null : outs.open(html);
+            OutputStream table = summary ? outs.open("-") : null;
+            ResultSet r = ResultReader.read(results);
+            Summary s = Summary.of(r);
+            if (!r.missingShards().isEmpty()) {
+                System.err.println("stria report: warning: shards " + r.missingShards() + " of "
+                        + r.shards().get(0).n() + " are missing; the report covers only the shards given");
             }
-        }
-        if (summary) {
-            SummaryTsv.write(s, System.out);
+            if (page != null) {
+                HtmlReport.write(r, s, page);
+            }
+            if (table != null) {
+                SummaryTsv.write(s, table);
+            }
+            outs.commit();
         }
         return 0;
     }

@@ -1,7 +1,6 @@
 package stria.cli;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.function.Consumer;
@@ -141,9 +140,8 @@ public final class ScanCommand implements Callable<Integer> {
     public Integer call() {
         ScanSettings settings = settings();
         Consumer<String> warn = quiet ? m -> { } : m -> System.err.println("stria: warning: " + m);
-        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs()) {
+        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs(inputs)) {
             ScanPlan plan = ScanPlan.of(genome, selection(genome));
-            AtomicOutputs.refuseInputs(Arrays.asList(bed, tsv, masked), inputs);
             String bedPath = bed == null && tsv == null ? "-" : bed;
             if ("-".equals(bedPath) && "-".equals(tsv)) {
                 throw new CommandLine.ParameterException(spec.commandLine(),
@@ -172,7 +170,7 @@ public final class ScanCommand implements Callable<Integer> {
 
     private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultFormat format,
                                              List<String> header) {
-        ResultWriter w = new ResultWriter(outputs.open(path), path, format);
+        ResultWriter w = new ResultWriter(outputs.open(path), AtomicOutputs.displayName(path), format);
         w.header(header);
         return w;
     }
