@@ -88,7 +88,7 @@ public final class Main implements Runnable {
         boolean debug = Boolean.getBoolean("stria.debug") || CommonOptions.debug(cl);
         PrintWriter err = cl.getErr();
         if (ex instanceof StriaException) {
-            err.println("stria: " + ex.getMessage());
+            err.println("stria: " + oneLine(ex.getMessage()));
         } else if (ex instanceof java.io.UncheckedIOException || ex instanceof htsjdk.samtools.util.RuntimeIOException) {
             err.println("stria: I/O error: " + StriaException.describe(ex));
         } else if (ex.getCause() instanceof OutOfMemoryError) {
@@ -101,6 +101,11 @@ public final class Main implements Runnable {
         }
         err.flush();
         return 1;
+    }
+
+    /** A message is one line even when a name in it holds a line break (a file name may). */
+    static String oneLine(String message) {
+        return message == null ? "" : message.replace("\r", "\\r").replace("\n", "\\n");
     }
 
     private static String versionString() {
