@@ -13,6 +13,7 @@ import stria.out.AtomicOutputs;
 import stria.out.LocusSink;
 import stria.out.MaskedFastaWriter;
 import stria.out.ResultFormat;
+import stria.out.ResultHeader;
 import stria.out.ResultWriter;
 import stria.out.Tabix;
 import stria.pipeline.Genome;
@@ -147,14 +148,17 @@ public final class ScanCommand implements Callable<Integer> {
                 throw new CommandLine.ParameterException(spec.commandLine(),
                         "--bed and --tsv cannot both write to standard output");
             }
-            List<String> header = plan.header(Main.VERSION, commandText(), settings).lines();
+            ResultHeader resultHeader = plan.header(Main.VERSION, commandText(), settings);
+            List<String> header = resultHeader.lines();
+            // a shard's result proves it is complete with a closing line, which merge checks
+            boolean sealed = resultHeader.shard() != null;
             List<LocusSink> sinks = new ArrayList<>();
             if (bedPath != null) {
-                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header));
+                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header, sealed));
                 Tabix.indexOnCommit(outputs, bedPath);
             }
             if (tsv != null) {
-                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header));
+                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header, sealed));
             }
             if (masked != null) {
                 sinks.add(new MaskedFastaWriter(outputs.open(masked), maskStyle.mode));
@@ -169,8 +173,11 @@ public final class ScanCommand implements Callable<Integer> {
     }
 
     private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultFormat format,
-                                             List<String> header) {
+                                             List<String> header, boolean sealed) {
         ResultWriter w = new ResultWriter(outputs.open(path), AtomicOutputs.displayName(path), format);
+        if (sealed) {
+            w.sealed();
+        }
         w.header(header);
         return w;
     }

@@ -19,12 +19,24 @@ public final class ResultWriter implements LocusSink {
     private final String name;
     private final ResultFormat format;
     private final StringBuilder buf = new StringBuilder(BLOCK);
+    /** Set by {@link #sealed}: the closing line's count and checksum, over the data lines only. */
+    private ResultSeal seal;
+    private long pendingLines;
 
     /** @param name the output as the user named it, for messages */
     public ResultWriter(OutputStream out, String name, ResultFormat format) {
         this.out = out;
         this.name = name;
         this.format = format;
+    }
+
+    /**
+     * Ends the result with a {@link ResultSeal} line (a shard's result, which {@code merge} checks). Call
+     * before {@link #header}.
+     */
+    public ResultWriter sealed() {
+        seal = new ResultSeal();
+        return this;
     }
 
     /** Writes the {@code #} lines and, for TSV, the column row. */
@@ -41,6 +53,7 @@ public final class ResultWriter implements LocusSink {
     @Override
     public void locus(String contig, Locus l) {
         format.append(buf, contig, l);
+        pendingLines++;
         if (buf.length() > BLOCK) {
             write();
         }
@@ -49,6 +62,11 @@ public final class ResultWriter implements LocusSink {
     @Override
     public void finish() {
         write();
+        if (seal != null) {
+            buf.append(seal.closingLine()).append('\n');
+            seal = null;
+            write();
+        }
         try {
             out.flush();
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
@@ -57,8 +75,13 @@ public final class ResultWriter implements LocusSink {
     }
 
     private void write() {
+        byte[] bytes = buf.toString().getBytes(StandardCharsets.UTF_8);
+        if (seal != null && pendingLines > 0) {
+            seal.data(bytes, 0, bytes.length, pendingLines);
+        }
+        pendingLines = 0;
         try {
-            out.write(buf.toString().getBytes(StandardCharsets.UTF_8));
+            out.write(bytes);
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
             throw failure(e);
         }

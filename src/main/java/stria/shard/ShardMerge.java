@@ -11,6 +11,7 @@ import stria.io.ContigInfo;
 import stria.out.ResultFormat;
 import stria.out.ResultHeader;
 import stria.out.ResultInput;
+import stria.out.ResultSeal;
 
 /**
  * Joins the results of the shards of one split run into the result a single run would have written.
@@ -115,7 +116,13 @@ public final class ShardMerge {
         }
         List<Part> ordered = new ArrayList<>(parts);
         ordered.sort(Comparator.comparingInt(Part::k));
-        return new ShardMerge(ordered, format, first.header.contigs());
+        ShardMerge merge = new ShardMerge(ordered, format, first.header.contigs());
+        // every shard proven whole before a byte is written (standard output cannot be taken back)
+        Order order = merge.order();
+        for (Part p : ordered) {
+            copyData(p, null, order);
+        }
+        return merge;
     }
 
     /**
@@ -136,7 +143,7 @@ public final class ShardMerge {
             if (format == ResultFormat.TSV) {
                 writeLine(out, parts.get(0).columns);
             }
-            Order order = new Order(contigs);
+            Order order = order();
             for (Part p : parts) {
                 copyData(p, out, order);
             }
@@ -145,6 +152,14 @@ public final class ShardMerge {
         }
     }
 
+    private Order order() {
+        int columns = format == ResultFormat.TSV ? parts.get(0).columns.split("\t", -1).length : BED_COLUMNS;
+        return new Order(contigs, columns);
+    }
+
+    /** BED6+3: chrom start end motif score strand period copies motif_class. */
+    private static final int BED_COLUMNS = 9;
+
     /**
      * Tracks the position of the last data line. Shards of one run own disjoint, ordered stretches, so a
      * line that goes backwards, or repeats the line before it, means shards that do not fit together (an
@@ -152,32 +167,50 @@ public final class ShardMerge {
      */
     private static final class Order {
         private final java.util.Map<String, Integer> rank = new java.util.HashMap<>();
+        private final int[] lengths;
+        private final int columns;
         private int lastRank = -1;
         private long lastStart = -1;
         private String lastLine = "";
         private String lastFile = "";
 
-        Order(List<ContigInfo> contigs) {
+        Order(List<ContigInfo> contigs, int columns) {
+            this.lengths = new int[contigs.size()];
+            this.columns = columns;
             for (int i = 0; i < contigs.size(); i++) {
                 rank.put(contigs.get(i).name(), i);
+                lengths[i] = contigs.get(i).length();
             }
         }
 
-        void check(String file, String line) {
+        void check(String file, long lineNo, String line) {
+            String where = file + " line " + lineNo;
             int t1 = line.indexOf('\t');
             int t2 = t1 < 0 ? -1 : line.indexOf('\t', t1 + 1);
-            Integer r = t2 < 0 ? null : rank.get(line.substring(0, t1));
+            int t3 = t2 < 0 ? -1 : line.indexOf('\t', t2 + 1);
+            Integer r = t3 < 0 ? null : rank.get(line.substring(0, t1));
             long start;
+            long end;
             try {
                 start = r == null ? -1 : Long.parseLong(line.substring(t1 + 1, t2));
+                end = r == null ? -1 : Long.parseLong(line.substring(t2 + 1, t3));
             } catch (NumberFormatException e) {
                 start = -1;
+                end = -1;
             }
-            if (r == null || start < 0) {
-                throw new StriaException(file + ": not a locus of this genome: " + abbreviate(line));
+            if (r == null || start < 0 || end <= start || end > lengths[r]) {
+                throw new StriaException(where + ": not a locus of this genome: " + abbreviate(line));
+            }
+            int n = 1;
+            for (int i = line.indexOf('\t'); i >= 0; i = line.indexOf('\t', i + 1)) {
+                n++;
+            }
+            if (n != columns) {
+                throw new StriaException(where + ": " + n + " columns where a result has " + columns + ": "
+                        + abbreviate(line));
             }
             if (r < lastRank || (r == lastRank && start < lastStart) || line.equals(lastLine)) {
-                throw new StriaException(file + ": locus " + abbreviate(line) + " comes after "
+                throw new StriaException(where + ": locus " + abbreviate(line) + " comes after "
                         + abbreviate(lastLine) + (lastFile.equals(file) ? "" : " of " + lastFile)
                         + "; these shard results overlap or are out of order");
             }
@@ -193,11 +226,27 @@ public final class ShardMerge {
         }
     }
 
+    /**
+     * Reads the data lines of one shard, checks each ({@link Order}) and the closing line against the body
+     * ({@link ResultSeal}), and copies them to {@code out} unless it is null.
+     */
     private static void copyData(Part p, OutputStream out, Order order) {
+        ResultSeal body = new ResultSeal();
+        String closing = null;
         try (ResultInput r = ResultInput.open(p.file, StandardCharsets.ISO_8859_1)) {
             String line;
             boolean inHeader = true;
+            long lineNo = 0;
             while ((line = r.readLine()) != null) {
+                lineNo++;
+                if (closing != null) {
+                    throw new StriaException(p.file + " line " + lineNo + ": a line after the closing "
+                            + ResultSeal.PREFIX.strip() + " line; the file is damaged");
+                }
+                if (line.startsWith(ResultSeal.PREFIX)) {
+                    closing = line;
+                    continue;
+                }
                 if (inHeader) {
                     if (line.startsWith("#")) {
                         continue;
@@ -207,9 +256,22 @@ public final class ShardMerge {
                         continue; // the column row
                     }
                 }
-                order.check(p.file, line);
-                writeOrFail(out, line);
+                order.check(p.file, lineNo, line);
+                body.line(line);
+                if (out != null) {
+                    writeOrFail(out, line);
+                }
             }
+        }
+        if (closing == null) {
+            throw new StriaException(p.file + " is incomplete: it does not end with the " + ResultSeal.PREFIX.strip()
+                    + " line that scan --shard writes last (cut short, or emptied); scan shard " + p.id + " again");
+        }
+        String expected = body.closingLine();
+        if (!closing.equals(expected)) {
+            throw new StriaException(p.file + " is damaged: its closing line says "
+                    + closing.substring(ResultSeal.PREFIX.length()) + " but its loci give "
+                    + expected.substring(ResultSeal.PREFIX.length()) + "; scan shard " + p.id + " again");
         }
     }
 
