@@ -26,6 +26,9 @@ import stria.shard.ShardMerge;
         description = {"Join the results of the shards of one split scan (scan --shard K/N) into one result.",
                 "Files may be given in any order, plain, gzip or BGZF; the set must hold every shard 1..N exactly "
                         + "once, all from the same input and settings.",
+                "Each shard must end with the closing #end line scan --shard writes last, and agree with it (a shard "
+                        + "cut short, emptied or edited is refused, by name); all are checked before anything is "
+                        + "written."
                 ""},
         footer = {"", "Exit status: 0 success, 1 incomplete or mismatched shard set or I/O error, 2 usage error."})
 public final class MergeCommand implements Callable<Integer> {
