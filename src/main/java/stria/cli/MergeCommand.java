@@ -28,7 +28,7 @@ import stria.shard.ShardMerge;
                         + "once, all from the same input and settings.",
                 "Each shard must end with the closing #end line scan --shard writes last, and agree with it (a shard "
                         + "cut short, emptied or edited is refused, by name); all are checked before anything is "
-                        + "written."
+                        + "written.",
                 ""},
         footer = {"", "Exit status: 0 success, 1 incomplete or mismatched shard set or I/O error, 2 usage error."})
 public final class MergeCommand implements Callable<Integer> {
