@@ -30,6 +30,9 @@ import stria.shard.ShardMerge;
                 + "the parts of one split comparison (compare --shard K/N, with --tsv).",
                 "Files may be given in any order, plain, gzip or BGZF; the set must hold every shard 1..N exactly "
                         + "once, all from the same input and settings.",
+                "Each shard must end with the closing #end line scan --shard writes last, and agree with it (a shard "
+                        + "cut short, emptied or edited is refused, by name); all are checked before anything is "
+                        + "written.",
                 ""},
         footer = {"", "Exit status: 0 success, 1 incomplete or mismatched shard set or I/O error, 2 usage error."})
 public final class MergeCommand implements Callable<Integer> {
@@ -93,11 +96,10 @@ public final class MergeCommand implements Callable<Integer> {
             case GFF -> target.gff;
             case CATALOG -> target.catalog;
         };
-        AtomicOutputs.refuseInputs(List.of(out), files);
-        ShardMerge merge = ShardMerge.check(files, format);
-        String command = commandLine();
-        try (AtomicOutputs outputs = new AtomicOutputs()) {
+        try (AtomicOutputs outputs = new AtomicOutputs(files)) {
             OutputStream stream = outputs.open(out);
+            ShardMerge merge = ShardMerge.check(files, format);
+            String command = commandLine();
             if (format == ResultFormat.BED) {
                 Tabix.indexOnCommit(outputs, out);
             } else if (format == ResultFormat.GFF) {
@@ -120,9 +122,8 @@ public final class MergeCommand implements Callable<Integer> {
             throw new ParameterException(spec.commandLine(), "the parts of a comparison merge with --tsv OUT");
         }
         List<String> outs = java.util.Arrays.asList(target.tsv, aBed, bBed, summary);
-        AtomicOutputs.refuseInputs(outs, files);
         CompareMerge merge = CompareMerge.check(files);
-        try (AtomicOutputs outputs = new AtomicOutputs()) {
+        try (AtomicOutputs outputs = new AtomicOutputs(files)) {
             OutputStream tsv = outputs.open(target.tsv);
             OutputStream a = aBed == null ? null : outputs.open(aBed);
             OutputStream b = bBed == null ? null : outputs.open(bBed);

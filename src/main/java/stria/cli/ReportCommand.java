@@ -1,5 +1,6 @@
 package stria.cli;
 
+import java.io.OutputStream;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -67,22 +68,24 @@ public final class ReportCommand implements Callable<Integer> {
         List<String> read = new java.util.ArrayList<>(results);
         read.addAll(java.util.Arrays.asList(genome, compare));
         read.removeIf(java.util.Objects::isNull);
-        AtomicOutputs.refuseInputs(java.util.Arrays.asList(html), read);
-        ResultSet r = ResultReader.read(results);
-        Gaps gaps = genome == null ? Gaps.unknown(r.header().contigs().size()) : Gaps.read(genome, r.header());
-        Summary s = Summary.of(r, gaps);
-        if (!r.missingShards().isEmpty()) {
-            System.err.println("stria report: warning: shards " + r.missingShards() + " of "
-                    + r.shards().get(0).n() + " are missing; the report covers only the shards given");
-        }
-        if (html != null) {
-            try (AtomicOutputs outs = new AtomicOutputs()) {
-                HtmlReport.write(r, s, gaps, compare, outs.open(html));
-                outs.commit();
+        // outputs are checked against the inputs (and each other) before anything is read
+        try (AtomicOutputs outs = new AtomicOutputs(read)) {
+            OutputStream page = html == null ? null : outs.open(html);
+            OutputStream table = summary ? outs.open("-") : null;
+            ResultSet r = ResultReader.read(results);
+            Gaps gaps = genome == null ? Gaps.unknown(r.header().contigs().size()) : Gaps.read(genome, r.header());
+            Summary s = Summary.of(r, gaps);
+            if (!r.missingShards().isEmpty()) {
+                System.err.println("stria report: warning: shards " + r.missingShards() + " of "
+                        + r.shards().get(0).n() + " are missing; the report covers only the shards given");
             }
-        }
-        if (summary) {
-            SummaryTsv.write(s, System.out);
+            if (page != null) {
+                HtmlReport.write(r, s, gaps, compare, page);
+            }
+            if (table != null) {
+                SummaryTsv.write(s, table);
+            }
+            outs.commit();
         }
         return 0;
     }

@@ -1,7 +1,6 @@
 package stria.cli;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.function.Consumer;
@@ -17,6 +16,7 @@ import stria.out.GffLines;
 import stria.out.LocusSink;
 import stria.out.MaskedFastaWriter;
 import stria.out.ResultFormat;
+import stria.out.ResultHeader;
 import stria.out.ResultWriter;
 import stria.out.Tabix;
 import stria.pipeline.Genome;
@@ -125,9 +125,8 @@ public final class ScanCommand implements Callable<Integer> {
     public Integer call() {
         ScanSettings settings = settings();
         Consumer<String> warn = quiet ? m -> { } : m -> System.err.println("stria: warning: " + m);
-        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs()) {
+        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs(inputs)) {
             ScanPlan plan = ScanPlan.of(genome, selection(genome));
-            AtomicOutputs.refuseInputs(Arrays.asList(bed, tsv, masked, gff, catalog), inputs);
             String bedPath = bed == null && tsv == null && gff == null && catalog == null ? "-" : bed;
             List<String> toStdout = new ArrayList<>();
             String[][] named = {{"--bed", bedPath}, {"--tsv", tsv}, {"--gff", gff}, {"--catalog", catalog}};
@@ -140,26 +139,29 @@ public final class ScanCommand implements Callable<Integer> {
                 throw new CommandLine.ParameterException(spec.commandLine(),
                         String.join(" and ", toStdout) + " cannot all write to standard output");
             }
-            List<String> header = plan.header(Main.VERSION, commandText(), settings).lines();
+            ResultHeader resultHeader = plan.header(Main.VERSION, commandText(), settings);
+            List<String> header = resultHeader.lines();
+            // a shard's result proves it is complete with a closing line, which merge checks
+            boolean sealed = resultHeader.shard() != null;
             List<LocusSink> sinks = new ArrayList<>();
             if (bedPath != null) {
-                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header));
+                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header, sealed));
                 Tabix.indexOnCommit(outputs, bedPath);
             }
             if (tsv != null) {
-                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header));
+                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header, sealed));
             }
             if (gff != null) {
                 List<String> lines = new ArrayList<>(Gff3.pragmas(genome.contigs()));
                 lines.addAll(header);
-                sinks.add(resultWriter(outputs, gff, new GffLines(), null, lines));
+                sinks.add(resultWriter(outputs, gff, new GffLines(), null, lines, sealed));
                 Tabix.indexGffOnCommit(outputs, gff);
             }
             if (catalog != null) {
                 CatalogLines rows = new CatalogLines(catalogMaxPeriod, flank);
                 List<String> lines = new ArrayList<>(header);
                 lines.addAll(rows.headerLines());
-                sinks.add(resultWriter(outputs, catalog, rows, CatalogLines.COLUMNS, lines));
+                sinks.add(resultWriter(outputs, catalog, rows, CatalogLines.COLUMNS, lines, sealed));
             }
             if (masked != null) {
                 sinks.add(new MaskedFastaWriter(outputs.open(masked), maskStyle.mode));
@@ -174,15 +176,21 @@ public final class ScanCommand implements Callable<Integer> {
     }
 
     private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultFormat format,
-                                             List<String> header) {
-        ResultWriter w = new ResultWriter(outputs.open(path), path, format);
+                                             List<String> header, boolean sealed) {
+        ResultWriter w = new ResultWriter(outputs.open(path), AtomicOutputs.displayName(path), format);
+        if (sealed) {
+            w.sealed();
+        }
         w.header(header);
         return w;
     }
 
     private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultWriter.Lines lines,
-                                             String columnRow, List<String> header) {
-        ResultWriter w = new ResultWriter(outputs.open(path), path, lines, columnRow);
+                                             String columnRow, List<String> header, boolean sealed) {
+        ResultWriter w = new ResultWriter(outputs.open(path), AtomicOutputs.displayName(path), lines, columnRow);
+        if (sealed) {
+            w.sealed();
+        }
         w.header(header);
         return w;
     }

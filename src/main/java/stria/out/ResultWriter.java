@@ -22,6 +22,9 @@ public final class ResultWriter implements LocusSink {
     private final Lines lines;
     private final String columnRow;
     private final StringBuilder buf = new StringBuilder(BLOCK);
+    /** Set by {@link #sealed}: the closing line's count and checksum, over the data lines only. */
+    private ResultSeal seal;
+    private long pendingLines;
 
     /** The text of a locus in one format; told each stretch's bases first, for formats that quote them. */
     public interface Lines {
@@ -51,6 +54,15 @@ public final class ResultWriter implements LocusSink {
         this.columnRow = columnRow;
     }
 
+    /**
+     * Ends the result with a {@link ResultSeal} line (a shard's result, which {@code merge} checks). Call
+     * before {@link #header}.
+     */
+    public ResultWriter sealed() {
+        seal = new ResultSeal();
+        return this;
+    }
+
     /** Writes the {@code #} lines and, for TSV, the column row. */
     public void header(List<String> lines) {
         for (String l : lines) {
@@ -74,7 +86,14 @@ public final class ResultWriter implements LocusSink {
 
     @Override
     public void locus(String contig, Locus l) {
+        int before = buf.length();
         lines.append(buf, contig, l);
+        // a format may skip a locus (the catalogue keeps short periods only) or write no line for it
+        for (int i = before; i < buf.length(); i++) {
+            if (buf.charAt(i) == '\n') {
+                pendingLines++;
+            }
+        }
         if (buf.length() > BLOCK) {
             write();
         }
@@ -83,6 +102,11 @@ public final class ResultWriter implements LocusSink {
     @Override
     public void finish() {
         write();
+        if (seal != null) {
+            buf.append(seal.closingLine()).append('\n');
+            seal = null;
+            write();
+        }
         try {
             out.flush();
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
@@ -91,8 +115,13 @@ public final class ResultWriter implements LocusSink {
     }
 
     private void write() {
+        byte[] bytes = buf.toString().getBytes(StandardCharsets.UTF_8);
+        if (seal != null && pendingLines > 0) {
+            seal.data(bytes, 0, bytes.length, pendingLines);
+        }
+        pendingLines = 0;
         try {
-            out.write(buf.toString().getBytes(StandardCharsets.UTF_8));
+            out.write(bytes);
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
             throw failure(e);
         }

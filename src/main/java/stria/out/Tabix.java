@@ -19,10 +19,10 @@ public final class Tabix {
 
     /**
      * When {@code bedPath} is a BGZF output of {@code outputs}, indexes it once it is complete and commits the
-     * index ({@code bedPath.tbi}) with it; does nothing for standard output and plain files.
+     * index ({@code bedPath.tbi}) with it; does nothing for plain files and for outputs not written as files (standard output, a FIFO, a device).
      */
     public static void indexOnCommit(AtomicOutputs outputs, String bedPath) {
-        if (bedPath.equals("-") || !AtomicOutputs.isBgzf(bedPath)) {
+        if (!AtomicOutputs.isBgzf(bedPath) || !outputs.isFile(bedPath)) {
             return;
         }
         Path index = outputs.companion(bedPath, bedPath + ".tbi");

@@ -189,10 +189,15 @@ public final class GenomeScan {
         } catch (InterruptedException e) {
             // the consumer stopped; nothing more to do
         } catch (Throwable t) {
-            if (current != null) {
-                // bases that cannot be read fail the windows still waiting for them, so the consumer
-                // stops at the first window it cannot have, in order
-                current.fail(t);
+            // whatever the consumer waits for (a window of this unit or of one before), it hears of it now
+            runner.abort(t);
+            try {
+                if (current != null) {
+                    // bases that cannot be read fail the windows still waiting for them
+                    current.fail(t);
+                }
+            } catch (Throwable again) {
+                t.addSuppressed(again);
             }
             try {
                 queue.put(new Failed(t));

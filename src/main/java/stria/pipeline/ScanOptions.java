@@ -114,7 +114,8 @@ public final class ScanOptions {
         require(maxP >= 1 && maxP <= MAX_PERIOD_LIMIT,
                 "--max-period must be between 1 and 1,000,000 (got " + maxP + ")");
         require(minP <= maxP, "--min-period " + minP + " is above --max-period " + maxP);
-        require(minC >= 0 && !Double.isNaN(minC), "--min-copies must not be negative (got " + minC + ")");
+        require(Double.isFinite(minC), "--min-copies must be a finite number (got " + minC + ")");
+        require(minC >= 0, "--min-copies must not be negative (got " + minC + ")");
         require(minL >= 0, "--min-length must not be negative (got " + minL + ")");
         require(minPur >= 0 && minPur <= 1, "--min-purity must be between 0 and 1 (got " + minPur + ")");
         require(threads >= 1 && threads <= MAX_THREADS,

@@ -1,6 +1,8 @@
 package stria.report;
 
-import java.io.PrintStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -41,14 +43,19 @@ public final class SummaryTsv {
         return c;
     }
 
-    public static void write(Summary s, PrintStream out) {
+    /** Writes the table to {@code out} (UTF-8) and flushes it. */
+    public static void write(Summary s, OutputStream out) {
         StringBuilder sb = new StringBuilder(String.join("\t", columns())).append('\n');
         row(sb, "genome", ".", s.genome());
         for (Summary.Row r : s.contigs()) {
             row(sb, "contig", r.name(), r);
         }
-        out.print(sb);
-        out.flush();
+        try {
+            out.write(sb.toString().getBytes(StandardCharsets.UTF_8));
+            out.flush();
+        } catch (IOException e) {
+            throw stria.StriaException.io("cannot write the summary", e);
+        }
     }
 
     private static void row(StringBuilder sb, String level, String name, Summary.Row r) {

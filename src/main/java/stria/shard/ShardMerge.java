@@ -12,6 +12,7 @@ import stria.out.Gff3;
 import stria.out.ResultFormat;
 import stria.out.ResultHeader;
 import stria.out.ResultInput;
+import stria.out.ResultSeal;
 
 /**
  * Joins the results of the shards of one split run into the result a single run would have written.
@@ -127,7 +128,13 @@ public final class ShardMerge {
         }
         List<Part> ordered = new ArrayList<>(parts);
         ordered.sort(Comparator.comparingInt(Part::k));
-        return new ShardMerge(ordered, format, first.header.contigs());
+        ShardMerge merge = new ShardMerge(ordered, format, first.header.contigs());
+        // every shard proven whole before a byte is written (standard output cannot be taken back)
+        Order order = merge.order();
+        for (Part p : ordered) {
+            copyData(p, null, order);
+        }
+        return merge;
     }
 
     /**
@@ -156,7 +163,7 @@ public final class ShardMerge {
             if (format.columnRow() != null) {
                 writeLine(out, first.columns);
             }
-            Order order = new Order(contigs, format);
+            Order order = order();
             for (Part p : parts) {
                 copyData(p, out, order);
             }
@@ -165,6 +172,14 @@ public final class ShardMerge {
         }
     }
 
+    private Order order() {
+        int columns = format.columnRow() != null ? parts.get(0).columns.split("\t", -1).length : NINE_COLUMNS;
+        return new Order(contigs, format, columns);
+    }
+
+    /** BED6+3 (chrom start end motif score strand period copies motif_class) and GFF3 both have nine. */
+    private static final int NINE_COLUMNS = 9;
+
     /**
      * Tracks the position of the last data line. Shards of one run own disjoint, ordered stretches, so a
      * line that goes backwards, or repeats the line before it, means shards that do not fit together (an
@@ -172,34 +187,55 @@ public final class ShardMerge {
      */
     private static final class Order {
         private final java.util.Map<String, Integer> rank = new java.util.HashMap<>();
+        private final int[] lengths;
+        private final int columns;
         private int lastRank = -1;
         private long lastStart = -1;
         private String lastLine = "";
         private String lastFile = "";
         private final ResultFormat format;
 
-        Order(List<ContigInfo> contigs, ResultFormat format) {
+        Order(List<ContigInfo> contigs, ResultFormat format, int columns) {
             this.format = format;
+            this.lengths = new int[contigs.size()];
+            this.columns = columns;
             for (int i = 0; i < contigs.size(); i++) {
                 rank.put(format.contigText(contigs.get(i).name()), i);
+                lengths[i] = contigs.get(i).length();
             }
         }
 
-        void check(String file, String line) {
-            String[] f = line.split("\t", Math.max(format.contigColumn(), format.startColumn()) + 2);
-            boolean enough = f.length > Math.max(format.contigColumn(), format.startColumn()) + 1;
+        void check(String file, long lineNo, String line) {
+            String where = file + " line " + lineNo;
+            int sc = format.startColumn();
+            String[] f = line.split("\t", Math.max(format.contigColumn(), sc + 1) + 2);
+            boolean enough = f.length > Math.max(format.contigColumn(), sc + 1);
             Integer r = enough ? rank.get(f[format.contigColumn()]) : null;
             long start;
+            long end;
             try {
-                start = r == null ? -1 : Long.parseLong(f[format.startColumn()]);
+                start = r == null ? -1 : Long.parseLong(f[sc]);
+                end = r == null ? -1 : Long.parseLong(f[sc + 1]);
+                if (format == ResultFormat.GFF && r != null) {
+                    start--; // 1-based inclusive
+                }
             } catch (NumberFormatException e) {
                 start = -1;
+                end = -1;
             }
-            if (r == null || start < 0) {
-                throw new StriaException(file + ": not a locus of this genome: " + abbreviate(line));
+            if (r == null || start < 0 || end <= start || end > lengths[r]) {
+                throw new StriaException(where + ": not a locus of this genome: " + abbreviate(line));
+            }
+            int n = 1;
+            for (int i = line.indexOf('\t'); i >= 0; i = line.indexOf('\t', i + 1)) {
+                n++;
+            }
+            if (n != columns) {
+                throw new StriaException(where + ": " + n + " columns where a result has " + columns + ": "
+                        + abbreviate(line));
             }
             if (r < lastRank || (r == lastRank && start < lastStart) || line.equals(lastLine)) {
-                throw new StriaException(file + ": locus " + abbreviate(line) + " comes after "
+                throw new StriaException(where + ": locus " + abbreviate(line) + " comes after "
                         + abbreviate(lastLine) + (lastFile.equals(file) ? "" : " of " + lastFile)
                         + "; these shard results overlap or are out of order");
             }
@@ -215,11 +251,27 @@ public final class ShardMerge {
         }
     }
 
+    /**
+     * Reads the data lines of one shard, checks each ({@link Order}) and the closing line against the body
+     * ({@link ResultSeal}), and copies them to {@code out} unless it is null.
+     */
     private static void copyData(Part p, OutputStream out, Order order) {
+        ResultSeal body = new ResultSeal();
+        String closing = null;
         try (ResultInput r = ResultInput.open(p.file, StandardCharsets.ISO_8859_1)) {
             String line;
             boolean inHeader = true;
+            long lineNo = 0;
             while ((line = r.readLine()) != null) {
+                lineNo++;
+                if (closing != null) {
+                    throw new StriaException(p.file + " line " + lineNo + ": a line after the closing "
+                            + ResultSeal.PREFIX.strip() + " line; the file is damaged");
+                }
+                if (line.startsWith(ResultSeal.PREFIX)) {
+                    closing = line;
+                    continue;
+                }
                 if (inHeader) {
                     if (line.startsWith("#")) {
                         continue;
@@ -229,9 +281,22 @@ public final class ShardMerge {
                         continue; // the column row
                     }
                 }
-                order.check(p.file, line);
-                writeOrFail(out, line);
+                order.check(p.file, lineNo, line);
+                body.line(line);
+                if (out != null) {
+                    writeOrFail(out, line);
+                }
             }
+        }
+        if (closing == null) {
+            throw new StriaException(p.file + " is incomplete: it does not end with the " + ResultSeal.PREFIX.strip()
+                    + " line that scan --shard writes last (cut short, or emptied); scan shard " + p.id + " again");
+        }
+        String expected = body.closingLine();
+        if (!closing.equals(expected)) {
+            throw new StriaException(p.file + " is damaged: its closing line says "
+                    + closing.substring(ResultSeal.PREFIX.length()) + " but its loci give "
+                    + expected.substring(ResultSeal.PREFIX.length()) + "; scan shard " + p.id + " again");
         }
     }
 
@@ -258,6 +323,9 @@ public final class ShardMerge {
         try (ResultInput r = ResultInput.open(file, StandardCharsets.ISO_8859_1)) {
             String line;
             while ((line = r.readLine()) != null) {
+                if (line.startsWith(stria.out.ResultSeal.PREFIX)) {
+                    break; // the closing line of a shard without loci: the body check reads it
+                }
                 if (!line.startsWith("#")) {
                     firstOther = line;
                     break;

@@ -247,6 +247,18 @@ class MergeCommandTest {
         return files;
     }
 
+    /** What scan --shard writes last: the data line count and SHA-256 (FIPS 180-4) of the data lines. */
+    static String closingLine(List<String> data) {
+        try {
+            java.security.MessageDigest md = java.security.MessageDigest.getInstance("SHA-256");
+            data.forEach(l -> md.update((l + "\n").getBytes(StandardCharsets.US_ASCII)));
+            return "#end: loci=" + data.size() + " sha256="
+                    + java.util.HexFormat.of().formatHex(md.digest()).substring(0, 16);
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new AssertionError(e);
+        }
+    }
+
     private String writeOne(String name, ResultHeader h, String columns, List<String> data, Compression c) {
         Path p = dir.resolve(name);
         StringBuilder sb = new StringBuilder();
@@ -255,6 +267,7 @@ class MergeCommandTest {
             sb.append(columns).append('\n');
         }
         data.forEach(l -> sb.append(l).append('\n'));
+        sb.append(closingLine(data)).append('\n');
         try (OutputStream raw = Files.newOutputStream(p);
              OutputStream out = switch (c) {
                  case PLAIN -> raw;
