@@ -79,9 +79,18 @@ public final class ScanCommand implements Callable<Integer> {
             + "(default: " + ScanOptions.IMPERFECT_MIN_PURITY + ").")
     Double minPurity;
 
-    @Option(names = "--min-score", paramLabel = "N", description = "Lowest alignment score of an imperfect "
-            + "locus (default: " + ScanOptions.IMPERFECT_MIN_SCORE + ").")
-    Integer minScore;
+    @Option(names = "--min-score", paramLabel = "BITS", description = "Lowest score of an imperfect locus, in "
+            + "bits (default: " + ScanOptions.IMPERFECT_MIN_SCORE + "). A score of S bits means the repeated "
+            + "consensus explains the locus' bases 2^S times better than random bases of the genome's "
+            + "composition do.")
+    Double minScore;
+
+    @Option(names = "--max-evalue", paramLabel = "X", description = "Highest evalue of an imperfect locus "
+            + "(default: " + ScanOptions.IMPERFECT_MAX_EVALUE + "; Infinity for none). The evalue of a locus is "
+            + "the number of loci scoring at least as well that chance alone would give in one million bases. "
+            + "It assumes random i.i.d. sequence of the scanned composition; real genomes are not random, so "
+            + "it ranks loci and is not the probability that a locus is real.")
+    Double maxEvalue;
 
     @Option(names = {"-o", "--bed"}, paramLabel = "FILE", description = "Write BED here (- for standard "
             + "output; the default when no other output is named).")
@@ -209,7 +218,7 @@ public final class ScanCommand implements Callable<Integer> {
         try {
             return new ScanOptions(exact ? ScanSettings.Mode.EXACT : ScanSettings.Mode.IMPERFECT)
                     .minPeriod(minPeriod).maxPeriod(maxPeriod).minCopies(minCopies).minLength(minLength)
-                    .minPurity(minPurity).minScore(minScore).threads(threads)
+                    .minPurity(minPurity).minScore(minScore).maxEvalue(maxEvalue).threads(threads)
                     .window(window == null ? null : parseSize(window, "--window")).settings();
         } catch (IllegalArgumentException e) {
             throw new CommandLine.ParameterException(spec.commandLine(), e.getMessage());

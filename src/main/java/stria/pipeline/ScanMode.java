@@ -2,7 +2,6 @@ package stria.pipeline;
 
 import java.util.concurrent.ExecutorService;
 import java.util.function.LongConsumer;
-import stria.io.ContigBytes;
 import stria.out.LocusSink;
 import stria.score.NeedMoreContextException;
 
@@ -26,8 +25,11 @@ sealed interface ScanMode permits ExactMode, ImperfectMode {
     /** The share of a unit's progress that finding its runs earns; turning them into loci earns the rest. */
     double findShare();
 
-    /** One pass over the runs of a unit's context {@code plan} (read into {@code seq}), loci to {@code out}. */
-    Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out);
+    /**
+     * One pass over the runs of a unit's context {@code plan} (read into {@code seq}, which also knows the
+     * composition of the blocks read), loci to {@code out}.
+     */
+    Pass pass(ScanUnit unit, ContigStore seq, WindowPlan plan, LocusSink out);
 
     /** Receives the stitched runs of the context, then delivers the unit's loci. */
     interface Pass extends Stitcher.Sink {

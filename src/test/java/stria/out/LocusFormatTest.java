@@ -15,7 +15,7 @@ import stria.score.Locus;
 class LocusFormatTest {
     private static Locus locus(int start, int end, int period, double purity) {
         return new Locus(start, end, period, "A".repeat(period), "A".repeat(period), (end - start) / (double) period,
-                purity, 0, 0, 0, 0, 0.0);
+                purity, 0, 0, 0, 0, 0, 0.0);
     }
 
     private static String column(String line, int index) {
