@@ -17,6 +17,7 @@ import stria.pipeline.ScanPlan;
 import stria.pipeline.ScanSettings;
 import stria.pipeline.Selection;
 import stria.score.Calibration;
+import stria.score.Locus;
 import stria.score.ScoringModel;
 
 /**
@@ -79,7 +80,25 @@ public final class Calibrate {
 
     /** Scores (bits) of the loci of {@code mb} random contigs of GC class {@code g}, by period class. */
     public static List<double[]> scores(int g, int mb, int threads, long seed) {
-        double gc = ScoringModel.gcOfClass(g);
+        List<List<Double>> by = new ArrayList<>();
+        for (int c = 0; c < Calibration.PERIOD_CLASSES; c++) {
+            by.add(new ArrayList<>());
+        }
+        for (Locus l : scan(ScoringModel.gcOfClass(g), mb, threads, seed)) {
+            by.get(Calibration.periodClass(l.period())).add(l.score());
+        }
+        List<double[]> out = new ArrayList<>();
+        for (List<Double> l : by) {
+            out.add(l.stream().mapToDouble(Double::doubleValue).toArray());
+        }
+        return out;
+    }
+
+    /**
+     * The loci, with the imperfect-mode defaults but no score or evalue bound, of {@code mb} contigs of one
+     * million random bases of GC content {@code gc}, drawn from {@code seed}.
+     */
+    public static List<Locus> scan(double gc, int mb, int threads, long seed) {
         List<String> names = new ArrayList<>();
         List<byte[]> seqs = new ArrayList<>();
         SplittableRandom rnd = new SplittableRandom(seed);
@@ -87,22 +106,9 @@ public final class Calibrate {
             names.add("r" + i);
             seqs.add(random(rnd, CONTIG, gc));
         }
-        ScanSettings s = unbounded(threads);
-        List<List<Double>> by = new ArrayList<>();
-        for (int c = 0; c < Calibration.PERIOD_CLASSES; c++) {
-            by.add(new ArrayList<>());
-        }
+        List<Locus> out = new ArrayList<>();
         ScanPlan plan = ScanPlan.of(Genome.of(names, seqs), Selection.wholeGenome());
-        new GenomeScan(s, Progress.none()).run(plan,
-                (contig, l) -> {
-                    synchronized (by) {
-                        by.get(Calibration.periodClass(l.period())).add(l.score());
-                    }
-                });
-        List<double[]> out = new ArrayList<>();
-        for (List<Double> l : by) {
-            out.add(l.stream().mapToDouble(Double::doubleValue).toArray());
-        }
+        new GenomeScan(unbounded(threads), Progress.none()).run(plan, (contig, l) -> out.add(l));
         return out;
     }
 
