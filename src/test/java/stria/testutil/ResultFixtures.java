@@ -18,7 +18,7 @@ public final class ResultFixtures {
     public static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
             + "\tmismatches\tinsertions\tdeletions\tscore\tevalue\tentropy";
     public static final String SETTINGS = "mode=imperfect min-period=1 max-period=2000 min-copies=2 min-length=12 "
-            + "min-purity=0.8 min-score=0 max-evalue=10 score-model=" + stria.score.ScoringModel.DESCRIPTION;
+            + "min-purity=0.8 min-score=0 max-evalue=5 score-model=" + stria.score.ScoringModel.DESCRIPTION;
 
     private ResultFixtures() {
     }
