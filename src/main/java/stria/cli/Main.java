@@ -13,7 +13,7 @@ import stria.StriaException;
             "",
             "Results are research-grade. Repeat-expansion loci matter clinically: stria is not a diagnostic "
                 + "test; defer to validated assays, licensed practice and local rules."},
-        subcommands = {ScanCommand.class, MergeCommand.class, PartitionCommand.class, ReportCommand.class,
+        subcommands = {ScanCommand.class, CompareCommand.class, MergeCommand.class, PartitionCommand.class, ReportCommand.class,
             CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final String VERSION = versionString();

@@ -19,7 +19,6 @@ import stria.out.Tabix;
 import stria.pipeline.Genome;
 import stria.pipeline.GenomeScan;
 import stria.pipeline.Progress;
-import stria.pipeline.ScanOptions;
 import stria.pipeline.ScanPlan;
 import stria.pipeline.ScanSettings;
 import stria.pipeline.Selection;
@@ -53,44 +52,8 @@ public final class ScanCommand implements Callable<Integer> {
                     + "standard input.")
     List<String> inputs = new ArrayList<>();
 
-    @Option(names = "--exact", description = "Report exact runs (maximal repetitions, purity 1) instead of "
-            + "imperfect loci.")
-    boolean exact;
-
-    @Option(names = "--min-period", paramLabel = "N", description = "Smallest period reported (default: "
-            + ScanOptions.MIN_PERIOD + ").")
-    Integer minPeriod;
-
-    @Option(names = "--max-period", paramLabel = "N", description = "Largest period reported (default: "
-            + ScanOptions.MAX_PERIOD + "; up to 1,000,000).")
-    Integer maxPeriod;
-
-    @Option(names = "--min-copies", paramLabel = "X", description = "Smallest copy number (length / period) "
-            + "reported (default: " + ScanOptions.EXACT_MIN_COPIES + " exact, " + ScanOptions.IMPERFECT_MIN_COPIES
-            + " imperfect).")
-    Double minCopies;
-
-    @Option(names = "--min-length", paramLabel = "N", description = "Shortest locus reported, in bases "
-            + "(default: " + ScanOptions.EXACT_MIN_LENGTH + " exact, " + ScanOptions.IMPERFECT_MIN_LENGTH
-            + " imperfect).")
-    Integer minLength;
-
-    @Option(names = "--min-purity", paramLabel = "X", description = "Lowest purity (0..1) of an imperfect locus "
-            + "(default: " + ScanOptions.IMPERFECT_MIN_PURITY + ").")
-    Double minPurity;
-
-    @Option(names = "--min-score", paramLabel = "BITS", description = "Lowest score of an imperfect locus, in "
-            + "bits (default: " + ScanOptions.IMPERFECT_MIN_SCORE + "). A score of S bits means the repeated "
-            + "consensus explains the locus' bases 2^S times better than random bases of the genome's "
-            + "composition do.")
-    Double minScore;
-
-    @Option(names = "--max-evalue", paramLabel = "X", description = "Highest evalue of an imperfect locus "
-            + "(default: " + ScanOptions.IMPERFECT_MAX_EVALUE + "; Infinity for none). The evalue of a locus is "
-            + "the number of loci scoring at least as well that chance alone would give in one million bases. "
-            + "It assumes random i.i.d. sequence of the scanned composition; real genomes are not random, so "
-            + "it ranks loci and is not the probability that a locus is real.")
-    Double maxEvalue;
+    @CommandLine.Mixin
+    ScanSettingOptions scanOptions = new ScanSettingOptions();
 
     @Option(names = {"-o", "--bed"}, paramLabel = "FILE", description = "Write BED here (- for standard "
             + "output; the default when no other output is named).")
@@ -127,15 +90,6 @@ public final class ScanCommand implements Callable<Integer> {
             this.mode = mode;
         }
     }
-
-    @Option(names = {"-t", "--threads"}, paramLabel = "N", description = "Worker threads (default: all cores, "
-            + "here ${DEFAULT-VALUE}). The output is the same for any value.")
-    int threads = Runtime.getRuntime().availableProcessors();
-
-    @Option(names = "--window", paramLabel = "SIZE", description = "Advanced: bases per window (default: 256K, or "
-            + "64 x --max-period up to 4M when that is more). Memory grows with window x threads; the output is "
-            + "the same for any value.")
-    String window;
 
     @Option(names = "--progress", description = "Report progress on stderr even when it is not a terminal.")
     boolean progress;
@@ -215,14 +169,7 @@ public final class ScanCommand implements Callable<Integer> {
         require(shard == null || regions.isEmpty(), "--shard and --region cannot be combined");
         require(masked == null || (shard == null && regions.isEmpty()),
                 "--masked writes whole genomes: it cannot be combined with --shard or --region");
-        try {
-            return new ScanOptions(exact ? ScanSettings.Mode.EXACT : ScanSettings.Mode.IMPERFECT)
-                    .minPeriod(minPeriod).maxPeriod(maxPeriod).minCopies(minCopies).minLength(minLength)
-                    .minPurity(minPurity).minScore(minScore).maxEvalue(maxEvalue).threads(threads)
-                    .window(window == null ? null : parseSize(window, "--window")).settings();
-        } catch (IllegalArgumentException e) {
-            throw new CommandLine.ParameterException(spec.commandLine(), e.getMessage());
-        }
+        return scanOptions.settings(spec.commandLine());
     }
 
     private void require(boolean ok, String message) {
@@ -240,29 +187,6 @@ public final class ScanCommand implements Callable<Integer> {
             } catch (IllegalArgumentException e) {
                 throw new CommandLine.TypeConversionException(e.getMessage());
             }
-        }
-    }
-
-    /** Parses 4000000, 4,000,000, 4M, 500k. */
-    long parseSize(String text, String option) {
-        String t = text.trim().replace(",", "").replace("_", "");
-        long mult = 1;
-        char last = t.isEmpty() ? ' ' : Character.toLowerCase(t.charAt(t.length() - 1));
-        if (last == 'k') {
-            mult = 1_000;
-        } else if (last == 'm') {
-            mult = 1_000_000;
-        } else if (last == 'g') {
-            mult = 1_000_000_000;
-        }
-        if (mult != 1) {
-            t = t.substring(0, t.length() - 1);
-        }
-        try {
-            return Math.multiplyExact(Long.parseLong(t), mult);
-        } catch (NumberFormatException | ArithmeticException e) {
-            throw new CommandLine.ParameterException(spec.commandLine(), option + " takes a size such as 4000000, "
-                    + "4,000,000 or 4M (got " + text + ")");
         }
     }
 }

@@ -38,10 +38,15 @@ public final class LocusFormat {
         sb.append('\n');
     }
 
-    /** Copies as length / period, rounded half up to 2 decimals from the exact fraction. */
     private static void copies(StringBuilder sb, Locus l) {
-        long len = l.length();
-        long p = l.period();
+        copies(sb, l.length(), l.period());
+    }
+
+    /**
+     * Copies as {@code len / p}, rounded half up to 2 decimals from the exact fraction (a double product
+     * could round a half the other way).
+     */
+    public static void copies(StringBuilder sb, long len, long p) {
         long hundredths = (len * 200 + p) / (2 * p);
         sb.append(hundredths / 100).append('.');
         long frac = hundredths % 100;
