@@ -37,9 +37,18 @@ final class ScanSettingOptions {
             + "(default: " + ScanOptions.IMPERFECT_MIN_PURITY + ").")
     Double minPurity;
 
-    @Option(names = "--min-score", paramLabel = "N", description = "Lowest alignment score of an imperfect "
-            + "locus (default: " + ScanOptions.IMPERFECT_MIN_SCORE + ").")
-    Integer minScore;
+    @Option(names = "--min-score", paramLabel = "BITS", description = "Lowest score of an imperfect locus, in "
+            + "bits (default: " + ScanOptions.IMPERFECT_MIN_SCORE + "). A score of S bits means the repeated "
+            + "consensus explains the locus' bases 2^S times better than random bases of the genome's "
+            + "composition do.")
+    Double minScore;
+
+    @Option(names = "--max-evalue", paramLabel = "X", description = "Highest evalue of an imperfect locus "
+            + "(default: " + ScanOptions.IMPERFECT_MAX_EVALUE + "; Infinity for none). The evalue of a locus is "
+            + "the number of loci scoring at least as well that chance alone would give in one million bases. "
+            + "It assumes random i.i.d. sequence of the scanned composition; real genomes are not random, so "
+            + "it ranks loci and is not the probability that a locus is real.")
+    Double maxEvalue;
 
     @Option(names = {"-t", "--threads"}, paramLabel = "N", description = "Worker threads (default: all cores, "
             + "here ${DEFAULT-VALUE}). The output is the same for any value.")
@@ -55,7 +64,7 @@ final class ScanSettingOptions {
         try {
             return new ScanOptions(exact ? ScanSettings.Mode.EXACT : ScanSettings.Mode.IMPERFECT)
                     .minPeriod(minPeriod).maxPeriod(maxPeriod).minCopies(minCopies).minLength(minLength)
-                    .minPurity(minPurity).minScore(minScore).threads(threads)
+                    .minPurity(minPurity).minScore(minScore).maxEvalue(maxEvalue).threads(threads)
                     .window(window == null ? null : parseSize(cl, window, "--window")).settings();
         } catch (IllegalArgumentException e) {
             throw new CommandLine.ParameterException(cl, e.getMessage());

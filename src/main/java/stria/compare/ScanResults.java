@@ -136,9 +136,21 @@ public final class ScanResults {
         if (motif.length() != period) {
             throw new IllegalArgumentException("motif " + motif + " is not of period " + period);
         }
-        return new Locus(start, end, period, motif, f[col[5]], Double.parseDouble(f[col[6]]),
-                Double.parseDouble(f[col[8]]), Integer.parseInt(f[col[9]]), Integer.parseInt(f[col[10]]),
-                Integer.parseInt(f[col[11]]), Integer.parseInt(f[col[12]]), Double.parseDouble(f[col[13]]));
+        return new Locus(start, end, period, motif, f[col[at("motif_class")]],
+                Double.parseDouble(f[col[at("copies")]]), Double.parseDouble(f[col[at("purity")]]),
+                Integer.parseInt(f[col[at("mismatches")]]), Integer.parseInt(f[col[at("insertions")]]),
+                Integer.parseInt(f[col[at("deletions")]]), Double.parseDouble(f[col[at("score")]]),
+                Double.parseDouble(f[col[at("evalue")]]), Double.parseDouble(f[col[at("entropy")]]));
+    }
+
+    /** Index in {@link #COLUMNS} of the column named {@code name}. */
+    private static int at(String name) {
+        for (int i = 0; i < COLUMNS.length; i++) {
+            if (COLUMNS[i].equals(name)) {
+                return i;
+            }
+        }
+        throw new IllegalStateException("no column " + name);
     }
 
     /** Where each column of the scan's TSV is, by name. */

@@ -4,9 +4,9 @@ import stria.score.Locus;
 
 /**
  * A locus as a GFF3 feature line (see {@link Gff3}): 1-based, inclusive coordinates, the Sequence Ontology
- * type by period, the alignment score in column 6, no strand (the motif is read on the + strand), and the
+ * type by period, the score in bits in column 6, no strand (the motif is read on the + strand), and the
  * attributes {@code ID}, {@code Ontology_term}, {@code motif}, {@code motif_class}, {@code period},
- * {@code copies}, {@code purity} and {@code score}, values percent-encoded.
+ * {@code copies}, {@code purity}, {@code score} (bits) and {@code evalue} (when calibrated), values percent-encoded.
  */
 public final class GffLines implements ResultWriter.Lines {
     public static final String SOURCE = "stria";
@@ -23,8 +23,9 @@ public final class GffLines implements ResultWriter.Lines {
         }
         Gff3.SoType type = Gff3.SoType.of(l.period());
         sb.append(seqid).append('\t').append(SOURCE).append('\t').append(type.term).append('\t')
-                .append(l.start() + 1).append('\t').append(l.end()).append('\t').append(l.score())
-                .append("\t.\t.\tID=").append(Gff3.attribute(ids.next(chrom, l)))
+                .append(l.start() + 1).append('\t').append(l.end()).append('\t');
+        LocusFormat.fixed(sb, l.score(), 1);
+        sb.append("\t.\t.\tID=").append(Gff3.attribute(ids.next(chrom, l)))
                 .append(";Ontology_term=").append(type.accession)
                 .append(";motif=").append(Gff3.attribute(l.motif()))
                 .append(";motif_class=").append(Gff3.attribute(l.motifClass()))
@@ -33,15 +34,12 @@ public final class GffLines implements ResultWriter.Lines {
         LocusFormat.copies(sb, l);
         sb.append(";purity=");
         LocusFormat.fixed(sb, l.purity(), 3);
-        sb.append(";score=").append(l.score());
-        scoreStatistics(sb, l);
+        sb.append(";score=");
+        LocusFormat.fixed(sb, l.score(), 1);
+        if (!Double.isNaN(l.evalue())) {
+            sb.append(";evalue=");
+            LocusFormat.evalue(sb, l.evalue());
+        }
         sb.append('\n');
-    }
-
-    /**
-     * The place for attributes from the statistics of the score (the evalue, once {@link Locus} carries it):
-     * append {@code ;evalue=...} here. Writes nothing yet.
-     */
-    private static void scoreStatistics(StringBuilder sb, Locus l) {
     }
 }

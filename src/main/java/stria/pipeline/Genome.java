@@ -93,7 +93,8 @@ public final class Genome implements AutoCloseable {
      */
     public void withContig(int i, Consumer<stria.io.ContigBytes> use) {
         ContigInfo c = contigs.get(i);
-        try (ContigStore store = ContigStore.open(c, 0, c.length(), stream(i), GenomeScan.IN_MEMORY_MAX)) {
+        try (ContigStore store = ContigStore.open(c, 0, c.length(), stream(i), GenomeScan.IN_MEMORY_MAX,
+                Geometry.COMPOSITION_BLOCK)) {
             store.fill(c.length());
             use.accept(store);
         }

@@ -46,22 +46,26 @@ public final class GenomeScan {
     private final Progress progress;
     private final long initialMargin;
     private final int inMemoryMax;
+    private final int block;
 
     public GenomeScan(ScanSettings settings, Progress progress) {
         this(settings, progress, Geometry.initialMargin(settings.filters().maxPeriod()), ImperfectMode.SCORE_CHUNK,
-                Math.max(IN_MEMORY_MAX, settings.window()));
+                Math.max(IN_MEMORY_MAX, settings.window()), Geometry.COMPOSITION_BLOCK);
     }
 
     /**
      * With the context first computed around a unit that is not a whole contig, the length of scoring
-     * chunks and the longest contig held in memory (tests force all three small).
+     * chunks, the longest contig held in memory and the length of composition blocks (tests force all four
+     * small).
      */
-    GenomeScan(ScanSettings settings, Progress progress, long initialMargin, int scoreChunk, int inMemoryMax) {
+    GenomeScan(ScanSettings settings, Progress progress, long initialMargin, int scoreChunk, int inMemoryMax,
+               int block) {
         this.settings = settings;
         this.mode = ScanMode.of(settings, scoreChunk);
         this.progress = progress;
         this.initialMargin = initialMargin;
         this.inMemoryMax = inMemoryMax;
+        this.block = block;
     }
 
     /** Scans every unit of {@code plan}; {@link LocusSink#finish} is called once all are done. */
@@ -138,14 +142,20 @@ public final class GenomeScan {
 
         /**
          * A store of the stretch a unit's runs and loci may read: the whole contig, or the context plus the
-         * mode's read pad on each side.
+         * mode's read pad on each side, widened to whole composition blocks so that every position read
+         * has the background a whole-contig scan gives it.
          */
         ContigStore open(ScanUnit u, Range context) {
             int pad = u.wholeContig() ? 0 : mode.readPad();
+            int length = u.contig().length();
             int origin = Math.max(0, context.lo() - pad);
-            int end = (int) Math.min(u.contig().length(), (long) context.hi() + pad);
+            int end = (int) Math.min(length, (long) context.hi() + pad);
+            if (end > origin) {
+                origin = ContigStore.blockStartAt(origin, length, block);
+                end = ContigStore.blockEndAt(end - 1, length, block);
+            }
             ContigStore st = ContigStore.open(u.contig(), origin, end, u.source().stream(u.contig(), origin),
-                    inMemoryMax);
+                    inMemoryMax, block);
             synchronized (this) {
                 if (!closed) {
                     open.add(st);

@@ -3,7 +3,6 @@ package stria.pipeline;
 import java.util.List;
 import java.util.concurrent.ExecutorService;
 import java.util.function.LongConsumer;
-import stria.io.ContigBytes;
 import stria.out.LocusSink;
 import stria.score.Locus;
 import stria.score.NeedMoreContextException;
@@ -28,8 +27,11 @@ sealed interface ScanMode permits ExactMode, ImperfectMode {
     /** The share of a unit's progress that finding its runs earns; turning them into loci earns the rest. */
     double findShare();
 
-    /** One pass over the runs of a unit's context {@code plan} (read into {@code seq}), loci to {@code out}. */
-    Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out);
+    /**
+     * One pass over the runs of a unit's context {@code plan} (read into {@code seq}, which also knows the
+     * composition of the blocks read), loci to {@code out}.
+     */
+    Pass pass(ScanUnit unit, ContigStore seq, WindowPlan plan, LocusSink out);
 
     /**
      * Whether the sink's {@link LocusSink#reach reach} beside one of {@code loci} leaves the context

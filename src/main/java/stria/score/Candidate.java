@@ -15,20 +15,25 @@ final class Candidate {
     final int period;
     final byte[] motif;
     final int phaseA;
+    /** Alignment score in units of {@link ScoringModel}. */
     final int score;
+    /** The model the score is in: that of the block holding {@code start}. */
+    final ScoringModel model;
     final int matches;
     final int mismatches;
     final int insertions;
     final int deletions;
     final int[] phaseAt;
 
-    Candidate(int start, byte[] motif, int phaseA, int score, VoteTally.PathCounts counts, int[] phaseAt) {
+    Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, VoteTally.PathCounts counts,
+              int[] phaseAt) {
         this.start = start;
         this.end = start + phaseAt.length;
         this.period = motif.length;
         this.motif = motif;
         this.phaseA = phaseA;
         this.score = score;
+        this.model = model;
         this.matches = counts.matches();
         this.mismatches = counts.mismatches();
         this.insertions = counts.insertions();
@@ -45,7 +50,8 @@ final class Candidate {
         return cols == 0 ? 0 : matches / (double) cols;
     }
 
-    Locus toLocus(byte[] seq) {
+    /** The locus, with its score in bits and its evalue under {@code calibration}. */
+    Locus toLocus(byte[] seq, Calibration calibration) {
         char[] m = new char[period];
         for (int i = 0; i < period; i++) {
             m[i] = (char) Bases.letter(motif[(phaseA + i) % period]);
@@ -53,7 +59,8 @@ final class Candidate {
         String motifText = new String(m);
         int len = end - start;
         return new Locus(start, end, period, motifText, MotifClass.of(motifText), len / (double) period,
-                purity(), mismatches, insertions, deletions, score, entropy(seq, start, end));
+                purity(), mismatches, insertions, deletions, ScoringModel.bits(score),
+                calibration.evalue(model.gcClass(), score), entropy(seq, start, end));
     }
 
     static double entropy(byte[] seq, int start, int end) {

@@ -37,8 +37,10 @@ public record CopyAlignment(byte[] bases, int[] phases) {
         byte[] trace = new byte[(n + 1) * p];
         Arrays.fill(prev, Integer.MIN_VALUE / 4);
         prev[0] = 0;
+        // the scan's own scores, against a background of even composition
+        ScoringModel model = ScoringModel.uniform();
         for (int s = 1; s < p; s++) {
-            prev[s] = prev[s - 1] + WrapAligner.GAP;
+            prev[s] = prev[s - 1] + model.deletion();
             trace[s] = DEL;
         }
         for (int i = 1; i <= n; i++) {
@@ -46,9 +48,10 @@ public record CopyAlignment(byte[] bases, int[] phases) {
             int row = i * p;
             for (int s = 0; s < p; s++) {
                 int before = s == 0 ? p - 1 : s - 1;
-                int diag = prev[before] + (c == m[before] && "ACGT".indexOf(c) >= 0 ? WrapAligner.MATCH
-                        : WrapAligner.MISMATCH);
-                int ins = prev[s] + WrapAligner.GAP;
+                int code = "ACGT".indexOf(c);
+                int diag = prev[before] + (code < 0 ? model.substitution(0)
+                        : c == m[before] ? model.match(code) : model.substitution(code));
+                int ins = prev[s] + model.insertion();
                 if (diag >= ins) {
                     cur[s] = diag;
                     trace[row + s] = DIAG;
@@ -61,7 +64,7 @@ public record CopyAlignment(byte[] bases, int[] phases) {
             for (int k = 1; k < 2 * p; k++) {
                 int s = k % p;
                 int before = s == 0 ? p - 1 : s - 1;
-                int del = cur[before] + WrapAligner.GAP;
+                int del = cur[before] + model.deletion();
                 if (del > cur[s]) {
                     cur[s] = del;
                     trace[row + s] = DEL;

@@ -66,7 +66,7 @@ class ScanFailureTest {
     private static GenomeScan scan(boolean exact, int threads, int inMemoryMax) {
         ScanSettings s = new ScanOptions(exact ? ScanSettings.Mode.EXACT : ScanSettings.Mode.IMPERFECT)
                 .threads(threads).window(8_192L).settings();
-        return new GenomeScan(s, Progress.none(), 20_000, 16_384, inMemoryMax);
+        return new GenomeScan(s, Progress.none(), 20_000, 16_384, inMemoryMax, Geometry.COMPOSITION_BLOCK);
     }
 
     @ParameterizedTest(name = "exact={0} threads={1} inMemoryMax={2} failing={3} at={4} regions={5}")
