@@ -13,7 +13,8 @@ import stria.StriaException;
             "",
             "Results are research-grade. Repeat-expansion loci matter clinically: stria is not a diagnostic "
                 + "test; defer to validated assays, licensed practice and local rules."},
-        subcommands = {ScanCommand.class, MergeCommand.class, PartitionCommand.class, ReportCommand.class,
+        subcommands = {ScanCommand.class, CompareCommand.class, MergeCommand.class, PartitionCommand.class,
+            ReportCommand.class, ShowCommand.class,
             CommandLine.HelpCommand.class})
 public final class Main implements Runnable {
     public static final String VERSION = versionString();
@@ -31,6 +32,8 @@ public final class Main implements Runnable {
     }
 
     public static void main(String[] args) {
+        // a process of its own: stdout failures can be told by their cause (see StandardOutput)
+        stria.out.StandardOutput.useDescriptor();
         System.exit(run(args));
     }
 
@@ -38,7 +41,13 @@ public final class Main implements Runnable {
     public static int run(String... args) {
         CommandLine cl = commandLine();
         try {
-            return cl.execute(args);
+            int code = cl.execute(args);
+            if (code == 0 && System.out.checkError()) {
+                // help, version or any text that went through System.out, whose errors it keeps to itself
+                System.err.println("stria: cannot write standard output (closed, full or its reader gone)");
+                return 1;
+            }
+            return code;
         } catch (OutOfMemoryError e) {
             // thrown on the main thread it passes the execution handler, which sees only exceptions
             System.err.println(OUT_OF_MEMORY);
@@ -51,6 +60,9 @@ public final class Main implements Runnable {
         cl.setExecutionExceptionHandler(Main::onError);
         cl.setParameterExceptionHandler(Main::onUsageError);
         cl.setCaseInsensitiveEnumValuesAllowed(true);
+        // every decimal option of every command, present and future: finite numbers only
+        cl.registerConverter(Double.class, new FiniteNumber());
+        cl.registerConverter(double.class, new FiniteNumber());
         cl.setUsageHelpLongOptionsMaxWidth(28);
         return cl;
     }
@@ -77,7 +89,7 @@ public final class Main implements Runnable {
         boolean debug = Boolean.getBoolean("stria.debug") || CommonOptions.debug(cl);
         PrintWriter err = cl.getErr();
         if (ex instanceof StriaException) {
-            err.println("stria: " + ex.getMessage());
+            err.println("stria: " + oneLine(ex.getMessage()));
         } else if (ex instanceof java.io.UncheckedIOException || ex instanceof htsjdk.samtools.util.RuntimeIOException) {
             err.println("stria: I/O error: " + StriaException.describe(ex));
         } else if (ex.getCause() instanceof OutOfMemoryError) {
@@ -90,6 +102,11 @@ public final class Main implements Runnable {
         }
         err.flush();
         return 1;
+    }
+
+    /** A message is one line even when a name in it holds a line break (a file name may). */
+    static String oneLine(String message) {
+        return message == null ? "" : message.replace("\r", "\\r").replace("\n", "\\n");
     }
 
     private static String versionString() {

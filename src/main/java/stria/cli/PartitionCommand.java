@@ -1,6 +1,8 @@
 package stria.cli;
 
-import java.io.PrintStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
@@ -11,9 +13,11 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
+import stria.StriaException;
 import stria.io.ContigInfo;
 import stria.io.GenomeReader;
 import stria.io.Region;
+import stria.out.AtomicOutputs;
 import stria.pipeline.Geometry;
 import stria.shard.Partition;
 import stria.shard.Shard;
@@ -57,11 +61,14 @@ public final class PartitionCommand implements Callable<Integer> {
                 genome.addAll(r.contigs());
             }
         }
-        print(Partition.of(genome, shards, grain), System.out);
+        try (AtomicOutputs outs = new AtomicOutputs(inputs)) {
+            print(Partition.of(genome, shards, grain), outs.open("-"));
+            outs.commit();
+        }
         return 0;
     }
 
-    static void print(List<Shard> shards, PrintStream out) {
+    static void print(List<Shard> shards, OutputStream out) {
         StringBuilder sb = new StringBuilder("#shard\tof\tbases\tpieces\n");
         for (Shard s : shards) {
             sb.append(s.id().k()).append('\t').append(s.id().n()).append('\t').append(s.bases()).append('\t');
@@ -74,7 +81,11 @@ public final class PartitionCommand implements Callable<Integer> {
             }
             sb.append('\n');
         }
-        out.print(sb);
-        out.flush();
+        try {
+            out.write(sb.toString().getBytes(StandardCharsets.UTF_8));
+            out.flush();
+        } catch (IOException e) {
+            throw StriaException.io("cannot write " + AtomicOutputs.displayName("-"), e);
+        }
     }
 }

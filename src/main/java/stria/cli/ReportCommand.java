@@ -1,5 +1,6 @@
 package stria.cli;
 
+import java.io.OutputStream;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -10,6 +11,7 @@ import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import stria.out.AtomicOutputs;
+import stria.report.Gaps;
 import stria.report.HtmlReport;
 import stria.report.ResultReader;
 import stria.report.ResultSet;
@@ -33,6 +35,15 @@ public final class ReportCommand implements Callable<Integer> {
             description = "Write a self-contained HTML report (charts inline, nothing fetched) to FILE.")
     String html;
 
+    @Option(names = "--genome", paramLabel = "FASTA",
+            description = "The genome the results were made from: its N gaps are left out of the bases that "
+                    + "shares are counted over, and drawn in the density charts.")
+    String genome;
+
+    @Option(names = "--compare", paramLabel = "FILE",
+            description = "A compare result (TSV): the HTML report lists its 20 most-changed loci.")
+    String compare;
+
     @Option(names = "--summary", description = "Print the summary table as TSV on stdout (columns below).")
     boolean summary;
 
@@ -54,20 +65,27 @@ public final class ReportCommand implements Callable<Integer> {
         if (results.stream().filter("-"::equals).count() > 1) {
             throw new ParameterException(spec.commandLine(), "standard input (-) can be read only once");
         }
-        ResultSet r = ResultReader.read(results);
-        Summary s = Summary.of(r);
-        if (!r.missingShards().isEmpty()) {
-            System.err.println("stria report: warning: shards " + r.missingShards() + " of "
-                    + r.shards().get(0).n() + " are missing; the report covers only the shards given");
-        }
-        if (html != null) {
-            try (AtomicOutputs outs = new AtomicOutputs()) {
-                HtmlReport.write(r, s, outs.open(html));
-                outs.commit();
+        List<String> read = new java.util.ArrayList<>(results);
+        read.addAll(java.util.Arrays.asList(genome, compare));
+        read.removeIf(java.util.Objects::isNull);
+        // outputs are checked against the inputs (and each other) before anything is read
+        try (AtomicOutputs outs = new AtomicOutputs(read)) {
+            OutputStream page = html == null ? null : outs.open(html);
+            OutputStream table = summary ? outs.open("-") : null;
+            ResultSet r = ResultReader.read(results);
+            Gaps gaps = genome == null ? Gaps.unknown(r.header().contigs().size()) : Gaps.read(genome, r.header());
+            Summary s = Summary.of(r, gaps);
+            if (!r.missingShards().isEmpty()) {
+                System.err.println("stria report: warning: shards " + r.missingShards() + " of "
+                        + r.shards().get(0).n() + " are missing; the report covers only the shards given");
             }
-        }
-        if (summary) {
-            SummaryTsv.write(s, System.out);
+            if (page != null) {
+                HtmlReport.write(r, s, gaps, compare, page);
+            }
+            if (table != null) {
+                SummaryTsv.write(s, table);
+            }
+            outs.commit();
         }
         return 0;
     }

@@ -1,7 +1,6 @@
 package stria.cli;
 
 import java.util.ArrayList;
-import java.util.Arrays;
 import java.util.List;
 import java.util.concurrent.Callable;
 import java.util.function.Consumer;
@@ -11,15 +10,18 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 import stria.io.Region;
 import stria.out.AtomicOutputs;
+import stria.out.CatalogLines;
+import stria.out.Gff3;
+import stria.out.GffLines;
 import stria.out.LocusSink;
 import stria.out.MaskedFastaWriter;
 import stria.out.ResultFormat;
+import stria.out.ResultHeader;
 import stria.out.ResultWriter;
 import stria.out.Tabix;
 import stria.pipeline.Genome;
 import stria.pipeline.GenomeScan;
 import stria.pipeline.Progress;
-import stria.pipeline.ScanOptions;
 import stria.pipeline.ScanPlan;
 import stria.pipeline.ScanSettings;
 import stria.pipeline.Selection;
@@ -35,7 +37,7 @@ import stria.shard.ShardId;
             "",
             "By default loci are imperfect repeats built from exact runs and extended while they still match "
                 + "their consensus motif; --exact reports the exact runs (maximal repetitions) instead.",
-            "Output is BED on standard output unless --bed or --tsv name files; coordinates are 0-based, end "
+            "Output is BED on standard output unless --bed, --tsv, --gff or --catalog name files; coordinates are 0-based, end "
                 + "exclusive, sorted by input contig order, start, end and period. Files ending in .gz are "
                 + "written block-gzipped (BGZF); a BED.gz gets a tabix index (.tbi) beside it.",
             ""},
@@ -53,35 +55,8 @@ public final class ScanCommand implements Callable<Integer> {
                     + "standard input.")
     List<String> inputs = new ArrayList<>();
 
-    @Option(names = "--exact", description = "Report exact runs (maximal repetitions, purity 1) instead of "
-            + "imperfect loci.")
-    boolean exact;
-
-    @Option(names = "--min-period", paramLabel = "N", description = "Smallest period reported (default: "
-            + ScanOptions.MIN_PERIOD + ").")
-    Integer minPeriod;
-
-    @Option(names = "--max-period", paramLabel = "N", description = "Largest period reported (default: "
-            + ScanOptions.MAX_PERIOD + "; up to 1,000,000).")
-    Integer maxPeriod;
-
-    @Option(names = "--min-copies", paramLabel = "X", description = "Smallest copy number (length / period) "
-            + "reported (default: " + ScanOptions.EXACT_MIN_COPIES + " exact, " + ScanOptions.IMPERFECT_MIN_COPIES
-            + " imperfect).")
-    Double minCopies;
-
-    @Option(names = "--min-length", paramLabel = "N", description = "Shortest locus reported, in bases "
-            + "(default: " + ScanOptions.EXACT_MIN_LENGTH + " exact, " + ScanOptions.IMPERFECT_MIN_LENGTH
-            + " imperfect).")
-    Integer minLength;
-
-    @Option(names = "--min-purity", paramLabel = "X", description = "Lowest purity (0..1) of an imperfect locus "
-            + "(default: " + ScanOptions.IMPERFECT_MIN_PURITY + ").")
-    Double minPurity;
-
-    @Option(names = "--min-score", paramLabel = "N", description = "Lowest alignment score of an imperfect "
-            + "locus (default: " + ScanOptions.IMPERFECT_MIN_SCORE + ").")
-    Integer minScore;
+    @CommandLine.Mixin
+    ScanSettingOptions scanOptions = new ScanSettingOptions();
 
     @Option(names = {"-o", "--bed"}, paramLabel = "FILE", description = "Write BED here (- for standard "
             + "output; the default when no other output is named).")
@@ -90,6 +65,24 @@ public final class ScanCommand implements Callable<Integer> {
     @Option(names = "--tsv", paramLabel = "FILE", description = "Write the TSV table with every figure here "
             + "(- for standard output).")
     String tsv;
+
+    @Option(names = "--gff", paramLabel = "FILE", description = "Also write the loci as GFF3 with Sequence "
+            + "Ontology types by period: 1 tandem_repeat, 2-10 microsatellite, 11-40 minisatellite, longer "
+            + "satellite_DNA (- for standard output; .gz gives BGZF with a tabix index).")
+    String gff;
+
+    @Option(names = "--catalog", paramLabel = "FILE", description = "Also write an STR catalogue: one row per "
+            + "locus up to --catalog-max-period, with a stable id and the genome's bases beside it (TSV; - for "
+            + "standard output; .gz gives BGZF).")
+    String catalog;
+
+    @Option(names = "--catalog-max-period", paramLabel = "N", description = "Largest period in the catalogue "
+            + "(default: " + CatalogLines.DEFAULT_MAX_PERIOD + ").")
+    int catalogMaxPeriod = CatalogLines.DEFAULT_MAX_PERIOD;
+
+    @Option(names = "--flank", paramLabel = "N", description = "Bases of each flank in the catalogue (default: "
+            + CatalogLines.DEFAULT_FLANK + ", at most " + CatalogLines.MAX_FLANK + "; shorter at contig ends).")
+    int flank = CatalogLines.DEFAULT_FLANK;
 
     @Option(names = "--region", paramLabel = "REGION", description = "Scan only this region, e.g. ctg2 or "
             + "ctg2:1,001-2,000 (1-based, inclusive; repeatable). Loci starting inside are reported whole. Uses "
@@ -119,15 +112,6 @@ public final class ScanCommand implements Callable<Integer> {
         }
     }
 
-    @Option(names = {"-t", "--threads"}, paramLabel = "N", description = "Worker threads (default: all cores, "
-            + "here ${DEFAULT-VALUE}). The output is the same for any value.")
-    int threads = Runtime.getRuntime().availableProcessors();
-
-    @Option(names = "--window", paramLabel = "SIZE", description = "Advanced: bases per window (default: 256K, or "
-            + "64 x --max-period up to 4M when that is more). Memory grows with window x threads; the output is "
-            + "the same for any value.")
-    String window;
-
     @Option(names = "--progress", description = "Report progress on stderr even when it is not a terminal.")
     boolean progress;
 
@@ -141,22 +125,43 @@ public final class ScanCommand implements Callable<Integer> {
     public Integer call() {
         ScanSettings settings = settings();
         Consumer<String> warn = quiet ? m -> { } : m -> System.err.println("stria: warning: " + m);
-        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs()) {
+        try (Genome genome = Genome.open(inputs, warn); AtomicOutputs outputs = new AtomicOutputs(inputs)) {
             ScanPlan plan = ScanPlan.of(genome, selection(genome));
-            AtomicOutputs.refuseInputs(Arrays.asList(bed, tsv, masked), inputs);
-            String bedPath = bed == null && tsv == null ? "-" : bed;
-            if ("-".equals(bedPath) && "-".equals(tsv)) {
-                throw new CommandLine.ParameterException(spec.commandLine(),
-                        "--bed and --tsv cannot both write to standard output");
+            String bedPath = bed == null && tsv == null && gff == null && catalog == null ? "-" : bed;
+            List<String> toStdout = new ArrayList<>();
+            String[][] named = {{"--bed", bedPath}, {"--tsv", tsv}, {"--gff", gff}, {"--catalog", catalog}};
+            for (String[] o : named) {
+                if ("-".equals(o[1])) {
+                    toStdout.add(o[0]);
+                }
             }
-            List<String> header = plan.header(Main.VERSION, commandText(), settings).lines();
+            if (toStdout.size() > 1) {
+                throw new CommandLine.ParameterException(spec.commandLine(),
+                        String.join(" and ", toStdout) + " cannot all write to standard output");
+            }
+            ResultHeader resultHeader = plan.header(Main.VERSION, commandText(), settings);
+            List<String> header = resultHeader.lines();
+            // a shard's result proves it is complete with a closing line, which merge checks
+            boolean sealed = resultHeader.shard() != null;
             List<LocusSink> sinks = new ArrayList<>();
             if (bedPath != null) {
-                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header));
+                sinks.add(resultWriter(outputs, bedPath, ResultFormat.BED, header, sealed));
                 Tabix.indexOnCommit(outputs, bedPath);
             }
             if (tsv != null) {
-                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header));
+                sinks.add(resultWriter(outputs, tsv, ResultFormat.TSV, header, sealed));
+            }
+            if (gff != null) {
+                List<String> lines = new ArrayList<>(Gff3.pragmas(genome.contigs()));
+                lines.addAll(header);
+                sinks.add(resultWriter(outputs, gff, new GffLines(), null, lines, sealed));
+                Tabix.indexGffOnCommit(outputs, gff);
+            }
+            if (catalog != null) {
+                CatalogLines rows = new CatalogLines(catalogMaxPeriod, flank);
+                List<String> lines = new ArrayList<>(header);
+                lines.addAll(rows.headerLines());
+                sinks.add(resultWriter(outputs, catalog, rows, CatalogLines.COLUMNS, lines, sealed));
             }
             if (masked != null) {
                 sinks.add(new MaskedFastaWriter(outputs.open(masked), maskStyle.mode));
@@ -171,8 +176,21 @@ public final class ScanCommand implements Callable<Integer> {
     }
 
     private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultFormat format,
-                                             List<String> header) {
-        ResultWriter w = new ResultWriter(outputs.open(path), path, format);
+                                             List<String> header, boolean sealed) {
+        ResultWriter w = new ResultWriter(outputs.open(path), AtomicOutputs.displayName(path), format);
+        if (sealed) {
+            w.sealed();
+        }
+        w.header(header);
+        return w;
+    }
+
+    private static ResultWriter resultWriter(AtomicOutputs outputs, String path, ResultWriter.Lines lines,
+                                             String columnRow, List<String> header, boolean sealed) {
+        ResultWriter w = new ResultWriter(outputs.open(path), AtomicOutputs.displayName(path), lines, columnRow);
+        if (sealed) {
+            w.sealed();
+        }
         w.header(header);
         return w;
     }
@@ -204,16 +222,12 @@ public final class ScanCommand implements Callable<Integer> {
     /** Checks the options (usage errors, exit 2) and builds the settings through {@link ScanOptions}. */
     ScanSettings settings() {
         require(shard == null || regions.isEmpty(), "--shard and --region cannot be combined");
+        require(catalogMaxPeriod >= 1, "--catalog-max-period must be at least 1 (got " + catalogMaxPeriod + ")");
+        require(flank >= 0 && flank <= CatalogLines.MAX_FLANK, "--flank must be 0 to " + CatalogLines.MAX_FLANK
+                + " (got " + flank + ")");
         require(masked == null || (shard == null && regions.isEmpty()),
                 "--masked writes whole genomes: it cannot be combined with --shard or --region");
-        try {
-            return new ScanOptions(exact ? ScanSettings.Mode.EXACT : ScanSettings.Mode.IMPERFECT)
-                    .minPeriod(minPeriod).maxPeriod(maxPeriod).minCopies(minCopies).minLength(minLength)
-                    .minPurity(minPurity).minScore(minScore).threads(threads)
-                    .window(window == null ? null : parseSize(window, "--window")).settings();
-        } catch (IllegalArgumentException e) {
-            throw new CommandLine.ParameterException(spec.commandLine(), e.getMessage());
-        }
+        return scanOptions.settings(spec.commandLine());
     }
 
     private void require(boolean ok, String message) {
@@ -231,29 +245,6 @@ public final class ScanCommand implements Callable<Integer> {
             } catch (IllegalArgumentException e) {
                 throw new CommandLine.TypeConversionException(e.getMessage());
             }
-        }
-    }
-
-    /** Parses 4000000, 4,000,000, 4M, 500k. */
-    long parseSize(String text, String option) {
-        String t = text.trim().replace(",", "").replace("_", "");
-        long mult = 1;
-        char last = t.isEmpty() ? ' ' : Character.toLowerCase(t.charAt(t.length() - 1));
-        if (last == 'k') {
-            mult = 1_000;
-        } else if (last == 'm') {
-            mult = 1_000_000;
-        } else if (last == 'g') {
-            mult = 1_000_000_000;
-        }
-        if (mult != 1) {
-            t = t.substring(0, t.length() - 1);
-        }
-        try {
-            return Math.multiplyExact(Long.parseLong(t), mult);
-        } catch (NumberFormatException | ArithmeticException e) {
-            throw new CommandLine.ParameterException(spec.commandLine(), option + " takes a size such as 4000000, "
-                    + "4,000,000 or 4M (got " + text + ")");
         }
     }
 }

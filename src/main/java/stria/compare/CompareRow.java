@@ -70,18 +70,8 @@ public final class CompareRow {
         sb.append('\t').append(r.note() != null ? r.note() : ".").append('\n');
     }
 
-    /**
-     * Length over period with 2 decimals, rounded half up from the exact fraction, as the scan writes
-     * copies (a double product could round a half the other way).
-     */
     static void copies(StringBuilder sb, long len, long p) {
-        long hundredths = (len * 200 + p) / (2 * p);
-        sb.append(hundredths / 100).append('.');
-        long frac = hundredths % 100;
-        if (frac < 10) {
-            sb.append('0');
-        }
-        sb.append(frac);
+        LocusFormat.copies(sb, len, p);
     }
 
     private static void fraction(StringBuilder sb, double v) {

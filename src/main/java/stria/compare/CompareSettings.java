@@ -37,6 +37,12 @@ public record CompareSettings(int anchorsPerSide, int flank, int maxSkip, int sa
         }
     }
 
+    /** The words {@code #settings} adds for the comparison (the least copy number is the scan's). */
+    public String describe() {
+        return "anchors=" + anchorsPerSide + " flank=" + flank + " max-skip=" + maxSkip + " sampling=" + sampling
+                + " max-cells=" + maxCells;
+    }
+
     /** The defaults, with the scan's least copy number. */
     public static CompareSettings defaults(double minCopies) {
         return new CompareSettings(DEFAULT_ANCHORS_PER_SIDE, DEFAULT_FLANK, DEFAULT_MAX_SKIP, DEFAULT_SAMPLING, minCopies,

@@ -9,6 +9,8 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
 import stria.io.BaseStream;
 import stria.io.Bases;
 import stria.io.ContigBytes;
@@ -54,6 +56,7 @@ public final class Comparison {
     final String[] unanchored;
     final AnchorTable table;
     private final boolean[] aCounted;
+    private final int[] aLength;
 
     // B
     private final List<String> bNames = new ArrayList<>();
@@ -62,6 +65,14 @@ public final class Comparison {
     private final int ringBits;
     private long bBases;
     private long aBasesCounted;
+
+    /** The loci compared: {@code [selFrom, selTo)} of A's loci in the order added; the others are neighbours only. */
+    final int selFrom;
+    final int selTo;
+    /** Per contig of A and of B: SHA-256 of its bases in upper case, filled while counting and streaming. */
+    private final byte[][] aDigest;
+    private final List<byte[]> bDigest = new ArrayList<>();
+    private final List<Integer> bLength = new ArrayList<>();
 
     private List<ComparedLocus> results;
     private List<int[]> placedInB;
@@ -91,6 +102,10 @@ public final class Comparison {
         aBases = b.packed;
         table = new AnchorTable(b.words, b.aFwd, n * 2 * m);
         aCounted = new boolean[aNames.size()];
+        aDigest = new byte[aNames.size()][];
+        aLength = new int[aNames.size()];
+        selFrom = Math.min(b.selFrom, n);
+        selTo = Math.max(selFrom, Math.min(b.selTo, n));
         kept = new KeptStretches(n);
         long longest = 0;
         for (int g = 0; g < n; g++) {
@@ -135,6 +150,22 @@ public final class Comparison {
         private byte[] codes = new byte[4096];
         private long[] canon = new long[4097];
         private boolean built;
+        private int selFrom = 0;
+        private int selTo = Integer.MAX_VALUE;
+
+        /**
+         * Compares only loci {@code [from, to)} (numbered in the order added, over all contigs): the others
+         * are still neighbours (anchors avoid them, the aligner knows them), so each compared locus comes out
+         * exactly as in a comparison of all, but they get no anchors and no row. For splitting a comparison.
+         */
+        public Builder select(int from, int to) {
+            if (from < 0 || to < from) {
+                throw new IllegalArgumentException("selection [" + from + ", " + to + ")");
+            }
+            selFrom = from;
+            selTo = to;
+            return this;
+        }
 
         private Builder(CompareSettings settings) {
             this.settings = settings;
@@ -179,6 +210,15 @@ public final class Comparison {
             grow(g + 1);
             loci.add(l);
             contigOf[g] = c;
+            if (g < selFrom || g >= selTo) {
+                int base = g * 2 * m;
+                Arrays.fill(anchorPos, base, base + 2 * m, -1);
+                Arrays.fill(words, base, base + 2 * m, -1);
+                outerL[g] = outerR[g] = -1;
+                stretchAt[g] = -1;
+                unanchored.add("not-selected");
+                return;
+            }
             int s = l.start();
             int e = l.end();
             int flank = settings.flank();
@@ -436,18 +476,18 @@ public final class Comparison {
         KmerScanner sc = new KmerScanner(table, settings.sampling());
         sc.begin();
         KmerScanner.Hits hits = (slot, start, fwd) -> table.addA(slot);
-        byte[] whole = bases.array();
         int len = bases.length();
-        if (whole != null) {
-            sc.feed(whole, 0, len, hits);
-        } else {
-            byte[] buf = new byte[CHUNK];
-            for (int at = 0; at < len; at += CHUNK) {
-                int n = Math.min(CHUNK, len - at);
-                bases.copy(at, at + n, buf, 0);
-                sc.feed(buf, 0, n, hits);
-            }
+        MessageDigest md = sha256();
+        byte[] buf = new byte[CHUNK];
+        byte[] up = new byte[CHUNK];
+        for (int at = 0; at < len; at += CHUNK) {
+            int n = Math.min(CHUNK, len - at);
+            bases.copy(at, at + n, buf, 0);
+            sc.feed(buf, 0, n, hits);
+            digest(md, buf, up, n);
         }
+        aDigest[aContig] = md.digest();
+        aLength[aContig] = len;
         aBasesCounted += len;
     }
 
@@ -457,13 +497,35 @@ public final class Comparison {
         KmerScanner sc = new KmerScanner(table, settings.sampling());
         sc.begin();
         KmerScanner.Hits hits = (slot, start, fwd) -> table.addA(slot);
+        MessageDigest md = sha256();
         byte[] buf = new byte[CHUNK];
+        byte[] up = new byte[CHUNK];
         for (int at = 0; at < length; at += CHUNK) {
             int n = Math.min(CHUNK, length - at);
             bases.read(buf, 0, n);
             sc.feed(buf, 0, n, hits);
+            digest(md, buf, up, n);
         }
+        aDigest[aContig] = md.digest();
+        aLength[aContig] = length;
         aBasesCounted += length;
+    }
+
+    private static MessageDigest sha256() {
+        try {
+            return MessageDigest.getInstance("SHA-256");
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException(e);
+        }
+    }
+
+    /** Adds {@code buf[0, n)} in upper case: soft-masking does not make two contigs differ. */
+    private static void digest(MessageDigest md, byte[] buf, byte[] up, int n) {
+        for (int i = 0; i < n; i++) {
+            byte x = buf[i];
+            up[i] = x >= 'a' && x <= 'z' ? (byte) (x - 32) : x;
+        }
+        md.update(up, 0, n);
     }
 
     private void beginCount(int aContig) {
@@ -482,12 +544,17 @@ public final class Comparison {
     public void streamB(String name, int length, BaseStream bases) {
         int c = beginB(name);
         BStream s = new BStream(c);
+        MessageDigest md = sha256();
         byte[] buf = new byte[CHUNK];
+        byte[] up = new byte[CHUNK];
         for (int at = 0; at < length; at += CHUNK) {
             int n = Math.min(CHUNK, length - at);
             bases.read(buf, 0, n);
             s.feed(buf, n);
+            digest(md, buf, up, n);
         }
+        bDigest.add(md.digest());
+        bLength.add(length);
         bBases += length;
     }
 
@@ -495,12 +562,17 @@ public final class Comparison {
     public void streamB(String name, byte[] seq) {
         int c = beginB(name);
         BStream s = new BStream(c);
+        MessageDigest md = sha256();
         byte[] buf = new byte[CHUNK];
+        byte[] up = new byte[CHUNK];
         for (int at = 0; at < seq.length; at += CHUNK) {
             int n = Math.min(CHUNK, seq.length - at);
             System.arraycopy(seq, at, buf, 0, n);
             s.feed(buf, n);
+            digest(md, buf, up, n);
         }
+        bDigest.add(md.digest());
+        bLength.add(seq.length);
         bBases += seq.length;
     }
 
@@ -606,19 +678,23 @@ public final class Comparison {
 
     // ------------------------------------------------------------------ step 4: results
 
-    /** One row per locus of A, in A's order (contigs as added, loci as given). */
+    /**
+     * One row per locus of A compared (all, unless {@link Builder#select} chose some), in A's order (contigs
+     * as added, loci as given).
+     */
     public List<ComparedLocus> results(int threads) {
         if (results != null) {
             return results;
         }
         bRing = null;
-        int n = loci.length;
+        int n = selTo - selFrom;
         ComparedLocus[] out = new ComparedLocus[n];
+        int[] twin = identicalContigs();
         int block = 1024;
         if (threads <= 1 || n <= block) {
             Resolver r = new Resolver(this);
-            for (int g = 0; g < n; g++) {
-                out[g] = r.resolve(g);
+            for (int g = selFrom; g < selTo; g++) {
+                out[g - selFrom] = decide(r, g, twin);
             }
         } else {
             ExecutorService pool = Executors.newFixedThreadPool(threads, task -> {
@@ -629,13 +705,13 @@ public final class Comparison {
             try {
                 List<Future<?>> fs = new ArrayList<>();
                 ThreadLocal<Resolver> own = ThreadLocal.withInitial(() -> new Resolver(this));
-                for (int from = 0; from < n; from += block) {
+                for (int from = selFrom; from < selTo; from += block) {
                     int a = from;
-                    int b = Math.min(n, from + block);
+                    int b = Math.min(selTo, from + block);
                     fs.add(pool.submit(() -> {
                         Resolver r = own.get();
                         for (int g = a; g < b; g++) {
-                            out[g] = r.resolve(g);
+                            out[g - selFrom] = decide(r, g, twin);
                         }
                     }));
                 }
@@ -663,6 +739,44 @@ public final class Comparison {
         return results;
     }
 
+    /** A locus of a contig that B holds unchanged is itself there; any other is resolved by its anchors. */
+    private ComparedLocus decide(Resolver r, int g, int[] twin) {
+        int b = twin[contigOf[g]];
+        if (b < 0) {
+            return r.resolve(g);
+        }
+        Locus l = loci[g];
+        return new ComparedLocus(aNames.get(contigOf[g]), l, Status.SAME, bNames.get(b), l.start(), l.end(), '+',
+                l.purity(), null, null);
+    }
+
+    /**
+     * For each contig of A, the contig of B with the very same bases (case aside), or -1: where each of
+     * them has exactly one such partner, every locus is at the same place in B, its flanks repeated or not.
+     * Loci with no unique anchor (flanks inside interspersed repeats) are placed that way too, which makes
+     * a genome compared with itself come out {@code same} throughout.
+     */
+    private int[] identicalContigs() {
+        Map<String, List<Integer>> aBy = new HashMap<>();
+        Map<String, List<Integer>> bBy = new HashMap<>();
+        java.util.HexFormat hex = java.util.HexFormat.of();
+        for (int c = 0; c < aNames.size(); c++) {
+            aBy.computeIfAbsent(aLength[c] + ":" + hex.formatHex(aDigest[c]), k -> new ArrayList<>()).add(c);
+        }
+        for (int c = 0; c < bNames.size(); c++) {
+            bBy.computeIfAbsent(bLength.get(c) + ":" + hex.formatHex(bDigest.get(c)), k -> new ArrayList<>()).add(c);
+        }
+        int[] twin = new int[aNames.size()];
+        Arrays.fill(twin, -1);
+        for (Map.Entry<String, List<Integer>> e : aBy.entrySet()) {
+            List<Integer> bs = bBy.get(e.getKey());
+            if (e.getValue().size() == 1 && bs != null && bs.size() == 1) {
+                twin[e.getValue().get(0)] = bs.get(0);
+            }
+        }
+        return twin;
+    }
+
     /**
      * Per B contig, the stretches of B that belong to a locus of A: B's repeat of every placed locus, and
      * around every B-unique anchor of an unplaced one the stretch its counterpart could occupy (a locus of
@@ -674,8 +788,9 @@ public final class Comparison {
         for (int c = 0; c < bNames.size(); c++) {
             per.add(new ArrayList<>());
         }
-        for (int g = 0; g < out.length; g++) {
-            ComparedLocus r = out[g];
+        for (int i = 0; i < out.length; i++) {
+            ComparedLocus r = out[i];
+            int g = selFrom + i;
             if (r.placed()) {
                 int wide = r.otherStart() == r.otherEnd() ? 1 : 0;
                 per.get(bIndex.get(r.otherChrom())).add(new long[] {r.otherStart() - wide, r.otherEnd() + wide});

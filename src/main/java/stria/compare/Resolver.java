@@ -268,9 +268,16 @@ final class Resolver {
         } else {
             st = Status.CHANGED;
         }
+        if (st == Status.CHANGED && lenB > lenA && purity < l.purity() - UNCLEAR_PURITY_DROP) {
+            // the loop took bases that do not repeat A's motif: unrelated sequence put in beside the repeat
+            // costs less in the loop, as mismatches, than as an insertion in flank; no length is told
+            return ComparedLocus.unplaced(chrom, l, "repeat-unclear-in-B");
+        }
         return new ComparedLocus(chrom, l, st, c.bName(contig), from, to, plus ? '+' : '-', purity, null, note);
     }
 
+    /** B's longer repeat whose purity is this much below A's is not taken as a change of length. */
+    static final double UNCLEAR_PURITY_DROP = 0.15;
     /** Bases of a window in which more than {@link #STEP_MISMATCHES} differ: the stretches are out of step. */
     static final int STEP_WINDOW = 16;
     static final int STEP_MISMATCHES = 4;

@@ -1,7 +1,7 @@
 package stria.compare;
 
 import java.util.Arrays;
-import stria.score.WrapAligner;
+import stria.score.ScoringModel;
 
 /**
  * Aligns B's bases between two anchors, end to end, against what A has between them: A's bases where A
@@ -9,8 +9,9 @@ import stria.score.WrapAligner;
  * many of B's bases as B's copy of that repeat holds. This is wraparound dynamic programming (Fischetti,
  * Landau, Sellers &amp; Schmidt 1993) with the motif's cycle of template states embedded in a linear
  * template: a loop is entered at the phase A's locus starts with and left at any phase, and may be left
- * at once (nothing of the repeat in B). Scores are the scorer's ({@link WrapAligner#MATCH},
- * {@link WrapAligner#MISMATCH}, {@link WrapAligner#GAP} for each inserted or deleted base).
+ * at once (nothing of the repeat in B). Scores are the scorer's log-odds columns on the uniform background
+ * ({@link ScoringModel#uniform}: one match, substitution and gap score whatever the base; an insertion
+ * and a deletion cost the same).
  *
  * <p>One loop is the target: the locus being measured. Along the best path the aligner carries the row at
  * which the target loop is entered and left (B's repeat is {@code [b0, b1)} of the text) and the
@@ -24,9 +25,10 @@ import stria.score.WrapAligner;
  * branches (in unrelated bases every comparison goes either way at random). One instance per thread.
  */
 final class StretchAligner {
-    static final int MATCH = WrapAligner.MATCH;
-    static final int MISMATCH = WrapAligner.MISMATCH;
-    static final int GAP = WrapAligner.GAP;
+    static final int MATCH = ScoringModel.uniform().match(0);
+    static final int MISMATCH = ScoringModel.uniform().substitution(0);
+    /** Each inserted or deleted base. */
+    static final int GAP = ScoringModel.uniform().insertion();
     private static final int NEG = Integer.MIN_VALUE / 4;
 
     // the template: letter[v] is consumed on the way into node v from v - 1, and, for the first state of a

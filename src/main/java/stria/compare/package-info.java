@@ -3,7 +3,10 @@
  * ({@link stria.compare.Comparison}) takes A's loci per contig with random access to A's bases, and B as
  * contigs streamed once front to back; it never holds either genome whole and does not depend on how the
  * scans were run. Uses {@code score.Locus} and the scorer's alignment scores, {@code io} for bases, and
- * {@code out.LocusFormat} for numbers; nothing here writes files.
+ * {@code out.LocusFormat} for numbers. {@link stria.compare.GenomeComparison} runs a whole comparison on top
+ * of the scan ({@code pipeline}); the writer, BED, summary and merge of parts ({@code CompareWriter},
+ * {@code ChangedBed}, {@code CompareSummary}, {@code CompareMerge}) write to streams the caller opens and
+ * read results through {@code out.ResultInput}; {@code report.PeriodClass} names the period classes.
  *
  * <h2>Anchors</h2>
  * A locus is found in B by the sequence beside it, never by coordinates, so B's contigs may be renamed,
@@ -77,7 +80,11 @@
  *
  * <h2>Known limits</h2>
  * A locus whose flanks are interspersed repeats within 400 bases on one side is unplaced (1.7 % of
- * chromosome 20 against itself), also when A and B are the same file. Two neighbouring loci whose motifs
+ * chromosome 20 against itself), unless its contig of A has exactly one identical contig in B (and that one
+ * in A): those keep every locus in place, so a genome compared with itself is {@code same} throughout. A
+ * longer repeat in B far less pure than A's (more than 0.15 below; an insertion of unrelated sequence
+ * beside it, which the loop takes more cheaply than flank) is {@code unplaced}, note
+ * {@code repeat-unclear-in-B}. Two neighbouring loci whose motifs
  * fit each other's bases about equally (one imperfect array the scan split in two) keep their bases
  * apart: a change near or across their boundary may be credited to the wrong one, or to both.
  */

@@ -9,7 +9,7 @@ import stria.score.Locus;
  */
 public final class LocusFormat {
     public static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
-            + "\tmismatches\tinsertions\tdeletions\tscore\tentropy\tsubunit_period\tsubunits";
+            + "\tmismatches\tinsertions\tdeletions\tscore\tevalue\tentropy\tsubunit_period\tsubunits";
 
     private LocusFormat() {
     }
@@ -29,7 +29,11 @@ public final class LocusFormat {
         sb.append('\t').append(l.length()).append('\t');
         fixed(sb, l.purity(), 3);
         sb.append('\t').append(l.mismatches()).append('\t').append(l.insertions()).append('\t')
-                .append(l.deletions()).append('\t').append(l.score()).append('\t');
+                .append(l.deletions()).append('\t');
+        fixed(sb, l.score(), 1);
+        sb.append('\t');
+        evalue(sb, l.evalue());
+        sb.append('\t');
         fixed(sb, l.entropy(), 3);
         sb.append('\t');
         if (l.subunits() > 0) {
@@ -40,10 +44,16 @@ public final class LocusFormat {
         sb.append('\n');
     }
 
-    /** Copies as length / period, rounded half up to 2 decimals from the exact fraction. */
-    private static void copies(StringBuilder sb, Locus l) {
-        long len = l.length();
-        long p = l.period();
+    /** Copies as length / period, 2 decimals. */
+    static void copies(StringBuilder sb, Locus l) {
+        copies(sb, l.length(), l.period());
+    }
+
+    /**
+     * Copies as {@code len / p}, rounded half up to 2 decimals from the exact fraction (a double product
+     * could round a half the other way).
+     */
+    public static void copies(StringBuilder sb, long len, long p) {
         long hundredths = (len * 200 + p) / (2 * p);
         sb.append(hundredths / 100).append('.');
         long frac = hundredths % 100;
@@ -53,9 +63,34 @@ public final class LocusFormat {
         sb.append(frac);
     }
 
+    /** One formatted evalue; the cache holds one per slot, replaced whole, so threads may share it. */
+    private record Formatted(double value, String text) {
+    }
+
+    private static final Formatted[] EVALUES = new Formatted[4096];
+
+    /**
+     * An evalue as {@code %.1e} ({@code 3.2e-05}), exactly 0 as {@code 0}. Loci of one GC class and score share
+     * an evalue, so few distinct values occur and each is formatted once.
+     */
+    public static void evalue(StringBuilder sb, double v) {
+        if (v == 0) {
+            sb.append('0');
+            return;
+        }
+        long bits = Double.doubleToLongBits(v);
+        int slot = (int) ((bits ^ (bits >>> 29) ^ (bits >>> 41)) & (EVALUES.length - 1));
+        Formatted f = EVALUES[slot];
+        if (f == null || Double.doubleToLongBits(f.value()) != bits) {
+            f = new Formatted(v, String.format(java.util.Locale.ROOT, "%.1e", v));
+            EVALUES[slot] = f;
+        }
+        sb.append(f.text());
+    }
+
     /** A non-negative value with {@code digits} decimals, rounded half up. */
     public static void fixed(StringBuilder sb, double v, int digits) {
-        long scale = digits == 3 ? 1000 : digits == 2 ? 100 : (long) Math.pow(10, digits);
+        long scale = digits == 3 ? 1000 : digits == 2 ? 100 : digits == 1 ? 10 : (long) Math.pow(10, digits);
         long x = Math.round(v * scale);
         if (x < 0) {
             sb.append('-');

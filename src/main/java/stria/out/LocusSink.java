@@ -19,6 +19,14 @@ public interface LocusSink {
     default void begin(Region stretch, ContigBytes seq) {
     }
 
+    /**
+     * Bases on each side of a locus this sink reads from {@code seq} (flanks). A scan of a stretch that is not
+     * a whole contig reads a context wide enough that they are there, except where the contig ends.
+     */
+    default int reach() {
+        return 0;
+    }
+
     void locus(String contig, Locus locus);
 
     /** The last locus of {@code stretch} has been delivered. */
@@ -33,6 +41,15 @@ public interface LocusSink {
     static LocusSink all(List<? extends LocusSink> sinks) {
         List<LocusSink> list = List.copyOf(sinks);
         return new LocusSink() {
+            @Override
+            public int reach() {
+                int r = 0;
+                for (LocusSink s : list) {
+                    r = Math.max(r, s.reach());
+                }
+                return r;
+            }
+
             @Override
             public void begin(Region stretch, ContigBytes seq) {
                 for (LocusSink s : list) {

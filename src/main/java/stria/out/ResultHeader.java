@@ -64,18 +64,18 @@ public record ResultHeader(String version, String command, String settings, List
 
     public List<String> lines() {
         List<String> out = new ArrayList<>();
-        out.add(PREFIX_TOOL + version);
-        out.add(PREFIX_COMMAND + command);
-        out.add(PREFIX_SETTINGS + settings);
+        out.add(PREFIX_TOOL + escape(version));
+        out.add(PREFIX_COMMAND + escape(command));
+        out.add(PREFIX_SETTINGS + escape(settings));
         out.add(inputLine());
         for (ContigInfo c : contigs) {
-            out.add(PREFIX_CONTIG + c.name() + " " + c.length());
+            out.add(PREFIX_CONTIG + escape(c.name()) + " " + c.length());
         }
         for (Region r : regions) {
-            out.add(PREFIX_REGION + r.contig() + " " + r.start() + " " + r.end());
+            out.add(PREFIX_REGION + escape(r.contig()) + " " + r.start() + " " + r.end());
         }
         if (shard != null) {
-            out.add(PREFIX_SHARD + shard);
+            out.add(PREFIX_SHARD + escape(shard));
         }
         return out;
     }
@@ -93,15 +93,15 @@ public record ResultHeader(String version, String command, String settings, List
             if (l.startsWith(PREFIX_TOOL)) {
                 version = l.substring(PREFIX_TOOL.length()).trim();
             } else if (l.startsWith(PREFIX_COMMAND)) {
-                command = l.substring(PREFIX_COMMAND.length());
+                command = unescape(l.substring(PREFIX_COMMAND.length()));
             } else if (l.startsWith(PREFIX_SETTINGS)) {
                 settings = l.substring(PREFIX_SETTINGS.length());
             } else if (l.startsWith(PREFIX_CONTIG)) {
                 String[] f = l.substring(PREFIX_CONTIG.length()).split(" ");
-                contigs.add(new ContigInfo(f[0], Integer.parseInt(f[1])));
+                contigs.add(new ContigInfo(unescape(f[0]), Integer.parseInt(f[1])));
             } else if (l.startsWith(PREFIX_REGION)) {
                 String[] f = l.substring(PREFIX_REGION.length()).split(" ");
-                regions.add(new Region(f[0], Integer.parseInt(f[1]), Integer.parseInt(f[2])));
+                regions.add(new Region(unescape(f[0]), Integer.parseInt(f[1]), Integer.parseInt(f[2])));
             } else if (l.startsWith(PREFIX_SHARD)) {
                 shard = l.substring(PREFIX_SHARD.length()).trim();
             }
@@ -111,6 +111,68 @@ public record ResultHeader(String version, String command, String settings, List
         }
         return new ResultHeader(version, command, settings == null ? "" : settings, List.copyOf(contigs), shard,
                 List.copyOf(regions));
+    }
+
+    /**
+     * A header value on one line that no reader takes for data: a backslash, tab, line feed, carriage return
+     * and every other control character are written as {@code \\}, {@code \t}, {@code \n}, {@code \r} and
+     * {@code \xHH}; anything else is kept. A file name with a line feed in it (a shell allows it) would
+     * otherwise end the {@code #command} line and start a data line of its own choosing.
+     */
+    public static String escape(String value) {
+        int i = 0;
+        while (i < value.length() && value.charAt(i) >= 0x20 && value.charAt(i) != 0x7f && value.charAt(i) != '\\') {
+            i++;
+        }
+        if (i == value.length()) {
+            return value;
+        }
+        StringBuilder sb = new StringBuilder(value.length() + 8).append(value, 0, i);
+        for (; i < value.length(); i++) {
+            char c = value.charAt(i);
+            switch (c) {
+                case '\\' -> sb.append("\\\\");
+                case '\t' -> sb.append("\\t");
+                case '\n' -> sb.append("\\n");
+                case '\r' -> sb.append("\\r");
+                default -> {
+                    if (c < 0x20 || c == 0x7f) {
+                        sb.append(String.format("\\x%02x", (int) c));
+                    } else {
+                        sb.append(c);
+                    }
+                }
+            }
+        }
+        return sb.toString();
+    }
+
+    /** The inverse of {@link #escape}; an escape it does not know is kept as written. */
+    public static String unescape(String text) {
+        if (text.indexOf('\\') < 0) {
+            return text;
+        }
+        StringBuilder sb = new StringBuilder(text.length());
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            char next = i + 1 < text.length() ? text.charAt(i + 1) : 0;
+            if (c != '\\' || next == 0) {
+                sb.append(c);
+            } else if (next == '\\' || next == 't' || next == 'n' || next == 'r') {
+                sb.append(next == 't' ? '\t' : next == 'n' ? '\n' : next == 'r' ? '\r' : '\\');
+                i++;
+            } else if (next == 'x' && i + 3 < text.length() && isHex(text.charAt(i + 2)) && isHex(text.charAt(i + 3))) {
+                sb.append((char) Integer.parseInt(text.substring(i + 2, i + 4), 16));
+                i += 3;
+            } else {
+                sb.append(c);
+            }
+        }
+        return sb.toString();
+    }
+
+    private static boolean isHex(char c) {
+        return Character.digit(c, 16) >= 0;
     }
 
     /** Whether the {@code #input} line among {@code lines} agrees with the contig lines. */

@@ -6,6 +6,8 @@ import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 import stria.StriaException;
+import stria.io.ContigBytes;
+import stria.io.Region;
 import stria.score.Locus;
 
 /**
@@ -17,14 +19,48 @@ public final class ResultWriter implements LocusSink {
 
     private final OutputStream out;
     private final String name;
-    private final ResultFormat format;
+    private final Lines lines;
+    private final String columnRow;
     private final StringBuilder buf = new StringBuilder(BLOCK);
+    /** Set by {@link #sealed}: the closing line's count and checksum, over the data lines only. */
+    private ResultSeal seal;
+    private long pendingLines;
+
+    /** The text of a locus in one format; told each stretch's bases first, for formats that quote them. */
+    public interface Lines {
+        /** Appends the line of one locus, line end included. */
+        void append(StringBuilder sb, String contig, Locus locus);
+
+        /** The loci of {@code stretch} follow; {@code seq} is as {@link LocusSink#begin} describes it. */
+        default void begin(Region stretch, ContigBytes seq) {
+        }
+
+        /** As {@link LocusSink#reach}. */
+        default int reach() {
+            return 0;
+        }
+    }
 
     /** @param name the output as the user named it, for messages */
     public ResultWriter(OutputStream out, String name, ResultFormat format) {
+        this(out, name, format::append, format.columnRow());
+    }
+
+    /** A writer of other lines: {@code columnRow} (or null) follows the header lines. */
+    public ResultWriter(OutputStream out, String name, Lines lines, String columnRow) {
         this.out = out;
         this.name = name;
-        this.format = format;
+        this.lines = lines;
+        this.columnRow = columnRow;
+    }
+
+    /**
+     * Ends the result with a {@link ResultSeal} line (a shard's result, which {@code merge} checks). Call
+     * before {@link #header}.
+     */
+    public ResultWriter sealed() {
+        seal = new ResultSeal();
+        return this;
     }
 
     /** Writes the {@code #} lines and, for TSV, the column row. */
@@ -32,15 +68,32 @@ public final class ResultWriter implements LocusSink {
         for (String l : lines) {
             buf.append(l).append('\n');
         }
-        if (format.columnRow() != null) {
-            buf.append(format.columnRow()).append('\n');
+        if (columnRow != null) {
+            buf.append(columnRow).append('\n');
         }
         write();
     }
 
     @Override
+    public int reach() {
+        return lines.reach();
+    }
+
+    @Override
+    public void begin(Region stretch, ContigBytes seq) {
+        lines.begin(stretch, seq);
+    }
+
+    @Override
     public void locus(String contig, Locus l) {
-        format.append(buf, contig, l);
+        int before = buf.length();
+        lines.append(buf, contig, l);
+        // a format may skip a locus (the catalogue keeps short periods only) or write no line for it
+        for (int i = before; i < buf.length(); i++) {
+            if (buf.charAt(i) == '\n') {
+                pendingLines++;
+            }
+        }
         if (buf.length() > BLOCK) {
             write();
         }
@@ -49,6 +102,11 @@ public final class ResultWriter implements LocusSink {
     @Override
     public void finish() {
         write();
+        if (seal != null) {
+            buf.append(seal.closingLine()).append('\n');
+            seal = null;
+            write();
+        }
         try {
             out.flush();
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
@@ -57,8 +115,13 @@ public final class ResultWriter implements LocusSink {
     }
 
     private void write() {
+        byte[] bytes = buf.toString().getBytes(StandardCharsets.UTF_8);
+        if (seal != null && pendingLines > 0) {
+            seal.data(bytes, 0, bytes.length, pendingLines);
+        }
+        pendingLines = 0;
         try {
-            out.write(buf.toString().getBytes(StandardCharsets.UTF_8));
+            out.write(bytes);
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
             throw failure(e);
         }

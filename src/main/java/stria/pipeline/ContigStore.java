@@ -10,6 +10,8 @@ import stria.io.BaseStream;
 import stria.io.ContigBytes;
 import stria.io.ContigInfo;
 import stria.io.TempDir;
+import stria.score.Background;
+import stria.score.ScoringModel;
 
 /**
  * The bases of a stretch {@code [origin, end)} of a contig being scanned (the whole contig, or the context
@@ -18,6 +20,10 @@ import stria.io.TempDir;
  * {@code inMemoryMax} bases is held in an array; a longer one goes to a temporary file, so memory does not
  * grow with chromosome length (the page cache holds the file, not the heap). The file is unlinked as soon
  * as it is open: nothing is left behind whatever way the process ends.
+ *
+ * <p>As it fills, the store tallies the composition of the contig's composition blocks
+ * ({@link Background}, blocks of {@code block} bases from the contig's first base); {@link #background}
+ * gives the models of the blocks read whole so far.
  */
 abstract class ContigStore implements ContigBytes, AutoCloseable {
     private static final int PIECE = 1 << 20;
@@ -27,24 +33,79 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
     final int end;
     private final BaseStream in;
     private volatile int filledTo;
+    final int block;
+    // G or C, and A, C, G or T, bases read so far per composition block; written by the filling thread
+    // before filledTo moves past them, read by others only below filledTo
+    private final long[] gc;
+    private final long[] acgt;
 
-    private ContigStore(ContigInfo contig, int origin, int end, BaseStream in) {
+    private ContigStore(ContigInfo contig, int origin, int end, BaseStream in, int block) {
         this.contig = contig;
         this.origin = origin;
         this.end = end;
         this.in = in;
         this.filledTo = origin;
+        this.block = block;
+        int n = Background.blocks(contig.length(), block);
+        this.gc = new long[n];
+        this.acgt = new long[n];
     }
 
     /**
-     * @param in the contig's bases from {@code origin} on
+     * @param in    the contig's bases from {@code origin} on
+     * @param block length of the composition blocks
      */
-    static ContigStore open(ContigInfo contig, int origin, int end, BaseStream in, int inMemoryMax) {
+    static ContigStore open(ContigInfo contig, int origin, int end, BaseStream in, int inMemoryMax, int block) {
         if (origin < 0 || origin > end || end > contig.length()) {
             throw new IllegalArgumentException("[" + origin + ", " + end + ") outside " + contig);
         }
-        return end - origin <= inMemoryMax ? new InMemory(contig, origin, end, in)
-                : new Spooled(contig, origin, end, in);
+        return end - origin <= inMemoryMax ? new InMemory(contig, origin, end, in, block)
+                : new Spooled(contig, origin, end, in, block);
+    }
+
+    /** Contig position of the first base of the composition block holding {@code pos}. */
+    static int blockStartAt(int pos, int length, int block) {
+        return Background.blockStart(Background.blockOf(pos, length, block), block);
+    }
+
+    /** Contig position one past the composition block holding {@code pos}. */
+    static int blockEndAt(int pos, int length, int block) {
+        return Background.blockEnd(Background.blockOf(pos, length, block), length, block);
+    }
+
+    /** The composition models of the blocks that lie whole in {@code [origin, filled())}; others unknown. */
+    final Background background() {
+        int filled = filledTo;
+        int n = gc.length;
+        boolean[] known = new boolean[n];
+        for (int k = 0; k < n; k++) {
+            known[k] = Background.blockStart(k, block) >= origin
+                    && Background.blockEnd(k, contig.length(), block) <= filled;
+        }
+        return Background.of(contig.length(), block, gc, acgt, known);
+    }
+
+    /** The model of composition block {@code k}, or null while it is not read whole. */
+    final ScoringModel blockModel(int k) {
+        int len = contig.length();
+        if (Background.blockStart(k, block) < origin || Background.blockEnd(k, len, block) > filledTo) {
+            return null;
+        }
+        return ScoringModel.forClass(ScoringModel.classOf(gc[k], acgt[k]));
+    }
+
+    /** Tallies the bases {@code buf[off, off + n)}, which are contig positions {@code [pos, pos + n)}. */
+    final void tally(byte[] buf, int off, int n, int pos) {
+        int len = contig.length();
+        int i = 0;
+        while (i < n) {
+            int k = Background.blockOf(pos + i, len, block);
+            int stop = Math.min(n, Background.blockEnd(k, len, block) - pos);
+            long t = Background.tally(buf, off + i, off + stop);
+            gc[k] += t >>> 32;
+            acgt[k] += t & 0xFFFFFFFFL;
+            i = stop;
+        }
     }
 
     @Override
@@ -88,14 +149,15 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
     private static final class InMemory extends ContigStore {
         private final byte[] seq;
 
-        InMemory(ContigInfo contig, int origin, int end, BaseStream in) {
-            super(contig, origin, end, in);
+        InMemory(ContigInfo contig, int origin, int end, BaseStream in, int block) {
+            super(contig, origin, end, in, block);
             this.seq = new byte[end - origin];
         }
 
         @Override
         int put(BaseStream in, int at, int max) {
             in.read(seq, at, max);
+            tally(seq, at, max, origin + at);
             return max;
         }
 
@@ -119,8 +181,8 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
         private final FileChannel channel;
         private final byte[] piece = new byte[PIECE];
 
-        Spooled(ContigInfo contig, int origin, int end, BaseStream in) {
-            super(contig, origin, end, in);
+        Spooled(ContigInfo contig, int origin, int end, BaseStream in, int block) {
+            super(contig, origin, end, in, block);
             this.dir = TempDir.directory();
             try {
                 channel = TempDir.scratch(dir, "stria-contig-");
@@ -133,6 +195,7 @@ abstract class ContigStore implements ContigBytes, AutoCloseable {
         int put(BaseStream in, int at, int max) {
             int n = Math.min(max, PIECE);
             in.read(piece, 0, n);
+            tally(piece, 0, n, origin + at);
             ByteBuffer b = ByteBuffer.wrap(piece, 0, n);
             try {
                 long pos = at;

@@ -4,20 +4,27 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.ExecutorService;
 import java.util.function.LongConsumer;
-import stria.io.ContigBytes;
 import stria.out.LocusSink;
 import stria.repeats.RunList;
+import stria.score.Background;
+import stria.score.Calibration;
 import stria.score.ExactLocus;
 import stria.score.Locus;
 import stria.score.NeedMoreContextException;
 import stria.score.ScoreSettings;
+import stria.score.ScoringModel;
 
-/** Exact runs as loci: each stitched run that passes the filters, motif and composition from its first copy. */
+/**
+ * Exact runs as loci: each stitched run that passes the filters, motif and composition from its first copy,
+ * scored against the background of its composition block.
+ */
 final class ExactMode implements ScanMode {
     private final ScoreSettings filters;
+    private final Calibration calibration;
 
     ExactMode(ScoreSettings filters) {
         this.filters = filters;
+        this.calibration = Calibration.shipped().forPeriods(filters.minPeriod(), filters.maxPeriod());
     }
 
     @Override
@@ -42,20 +49,52 @@ final class ExactMode implements ScanMode {
     }
 
     @Override
-    public Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out) {
+    public Pass pass(ScanUnit unit, ContigStore seq, WindowPlan plan, LocusSink out) {
         String name = unit.contig().name();
         if (unit.wholeContig()) {
-            // the stitched runs are the loci, in order: written as they come
+            // the stitched runs are the loci, in order: written as they come, once the composition block of
+            // their first base is read whole
+            RunList pending = new RunList();
+            int len = unit.contig().length();
             return new Pass() {
+                private int head;
+                private int block = -1;
+                private ScoringModel model;
+
                 @Override
                 public void run(int s, int e, int p) {
                     if (passes(s, e, p)) {
-                        out.locus(name, ExactLocus.of(seq, s, e, p));
+                        pending.add(s, e, p);
+                        flush(false);
                     }
+                }
+
+                private void flush(boolean all) {
+                    while (head < pending.size()) {
+                        int s = pending.start(head);
+                        int k = Background.blockOf(s, len, seq.block);
+                        if (k != block) {
+                            ScoringModel m = seq.blockModel(k);
+                            if (m == null) {
+                                if (all) {
+                                    throw new IllegalStateException("block " + k + " of " + name + " not read");
+                                }
+                                return;
+                            }
+                            block = k;
+                            model = m;
+                        }
+                        out.locus(name, ExactLocus.of(seq, s, pending.end(head), pending.period(head), model,
+                                calibration));
+                        head++;
+                    }
+                    pending.clear();
+                    head = 0;
                 }
 
                 @Override
                 public void finish(ExecutorService pool, LongConsumer solved) {
+                    flush(true);
                 }
             };
         }
@@ -71,6 +110,7 @@ final class ExactMode implements ScanMode {
             @Override
             public void finish(ExecutorService pool, LongConsumer solved) {
                 int len = unit.contig().length();
+                Background background = seq.background();
                 List<Locus> loci = new ArrayList<>();
                 for (int i = 0; i < kept.size(); i++) {
                     int s = kept.start(i), e = kept.end(i), p = kept.period(i);
@@ -78,8 +118,12 @@ final class ExactMode implements ScanMode {
                         throw new NeedMoreContextException("run at " + s + " may continue past the context");
                     }
                     if (passes(s, e, p)) {
-                        loci.add(ExactLocus.of(seq, s, e, p));
+                        loci.add(ExactLocus.of(seq, s, e, p, background.at(s), calibration));
                     }
+                }
+                if (ScanMode.reachLeavesContext(loci, out.reach(), plan, len)) {
+                    throw new NeedMoreContextException("the flanks of a locus of " + unit.region()
+                            + " reach past the context");
                 }
                 for (Locus l : loci) {
                     out.locus(name, l);

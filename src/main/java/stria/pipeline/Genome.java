@@ -82,6 +82,24 @@ public final class Genome implements AutoCloseable {
         return contigs;
     }
 
+    /** The bases of contig {@code i} (in input order), front to back, checked as they are read. */
+    public stria.io.BaseStream stream(int i) {
+        return sources.get(i).stream(contigs.get(i), 0);
+    }
+
+    /**
+     * Reads contig {@code i} whole, as a scan would (an array up to 4 Mb, else a temporary file that is
+     * gone when this returns), and hands it to {@code use}, for random access to its bases.
+     */
+    public void withContig(int i, Consumer<stria.io.ContigBytes> use) {
+        ContigInfo c = contigs.get(i);
+        try (ContigStore store = ContigStore.open(c, 0, c.length(), stream(i), GenomeScan.IN_MEMORY_MAX,
+                Geometry.COMPOSITION_BLOCK)) {
+            store.fill(c.length());
+            use.accept(store);
+        }
+    }
+
     /** The unit that reports the loci starting in {@code [from, to)} of {@code contig}. */
     ScanUnit unit(String contig, int from, int to) {
         Integer i = index.get(contig);

@@ -10,6 +10,7 @@ import java.util.concurrent.Semaphore;
 import java.util.concurrent.ThreadFactory;
 import java.util.concurrent.atomic.AtomicInteger;
 import stria.StriaException;
+import stria.io.ContigBytes;
 import stria.out.LocusSink;
 import stria.score.NeedMoreContextException;
 
@@ -45,22 +46,26 @@ public final class GenomeScan {
     private final Progress progress;
     private final long initialMargin;
     private final int inMemoryMax;
+    private final int block;
 
     public GenomeScan(ScanSettings settings, Progress progress) {
         this(settings, progress, Geometry.initialMargin(settings.filters().maxPeriod()), ImperfectMode.SCORE_CHUNK,
-                Math.max(IN_MEMORY_MAX, settings.window()));
+                Math.max(IN_MEMORY_MAX, settings.window()), Geometry.COMPOSITION_BLOCK);
     }
 
     /**
      * With the context first computed around a unit that is not a whole contig, the length of scoring
-     * chunks and the longest contig held in memory (tests force all three small).
+     * chunks, the longest contig held in memory and the length of composition blocks (tests force all four
+     * small).
      */
-    GenomeScan(ScanSettings settings, Progress progress, long initialMargin, int scoreChunk, int inMemoryMax) {
+    GenomeScan(ScanSettings settings, Progress progress, long initialMargin, int scoreChunk, int inMemoryMax,
+               int block) {
         this.settings = settings;
         this.mode = ScanMode.of(settings, scoreChunk);
         this.progress = progress;
         this.initialMargin = initialMargin;
         this.inMemoryMax = inMemoryMax;
+        this.block = block;
     }
 
     /** Scans every unit of {@code plan}; {@link LocusSink#finish} is called once all are done. */
@@ -137,14 +142,20 @@ public final class GenomeScan {
 
         /**
          * A store of the stretch a unit's runs and loci may read: the whole contig, or the context plus the
-         * mode's read pad on each side.
+         * mode's read pad on each side, widened to whole composition blocks so that every position read
+         * has the background a whole-contig scan gives it.
          */
         ContigStore open(ScanUnit u, Range context) {
             int pad = u.wholeContig() ? 0 : mode.readPad();
+            int length = u.contig().length();
             int origin = Math.max(0, context.lo() - pad);
-            int end = (int) Math.min(u.contig().length(), (long) context.hi() + pad);
+            int end = (int) Math.min(length, (long) context.hi() + pad);
+            if (end > origin) {
+                origin = ContigStore.blockStartAt(origin, length, block);
+                end = ContigStore.blockEndAt(end - 1, length, block);
+            }
             ContigStore st = ContigStore.open(u.contig(), origin, end, u.source().stream(u.contig(), origin),
-                    inMemoryMax);
+                    inMemoryMax, block);
             synchronized (this) {
                 if (!closed) {
                     open.add(st);
@@ -188,10 +199,15 @@ public final class GenomeScan {
         } catch (InterruptedException e) {
             // the consumer stopped; nothing more to do
         } catch (Throwable t) {
-            if (current != null) {
-                // bases that cannot be read fail the windows still waiting for them, so the consumer
-                // stops at the first window it cannot have, in order
-                current.fail(t);
+            // whatever the consumer waits for (a window of this unit or of one before), it hears of it now
+            runner.abort(t);
+            try {
+                if (current != null) {
+                    // bases that cannot be read fail the windows still waiting for them
+                    current.fail(t);
+                }
+            } catch (Throwable again) {
+                t.addSuppressed(again);
             }
             try {
                 queue.put(new Failed(t));
@@ -212,7 +228,9 @@ public final class GenomeScan {
     private void consume(Unit w, WindowRunner runner, ExecutorService pool, LocusSink out, Stores stores)
             throws InterruptedException {
         ScanUnit u = w.unit();
-        out.begin(u.region(), w.store());
+        // the sinks read the bases through this view, which follows the context when it is widened
+        Current view = new Current(w.store());
+        out.begin(u.region(), view);
         WindowPlan plan = w.windows().plan;
         ScanMode.Pass pass = mode.pass(u, w.store(), plan, out);
         w.windows().stitch(pass, k -> found(u, plan, k));
@@ -235,16 +253,41 @@ public final class GenomeScan {
             }
             store = stores.open(u, context);
             store.fill(store.end);
+            view.store = store;
             WindowPlan wider = plan(context);
             pass = mode.pass(u, store, wider, out);
             WindowRunner.Windows again = runner.windows(wider, null);
             runner.start(store, again);
             again.stitch(pass, k -> { });
         }
+        out.end(u.region(), view);
         if (store != w.store()) {
             stores.close(store);
         }
-        out.end(u.region(), w.store());
+    }
+
+    /** The bases of the context a unit's loci are delivered from: the first, or the last widened one. */
+    private static final class Current implements ContigBytes {
+        volatile ContigStore store;
+
+        Current(ContigStore store) {
+            this.store = store;
+        }
+
+        @Override
+        public int length() {
+            return store.length();
+        }
+
+        @Override
+        public void copy(int from, int to, byte[] dst, int off) {
+            store.copy(from, to, dst, off);
+        }
+
+        @Override
+        public byte[] array() {
+            return store.array();
+        }
     }
 
     /** Progress, in one place: window {@code k} of the first pass over a unit has been stitched. */

@@ -2,8 +2,8 @@ package stria.pipeline;
 
 /**
  * How a scan cuts a genome, in one place: windows and their overlap, the context read around a stretch that
- * is not a whole contig, and the grain of shard cuts. Everything here changes speed and memory, never the
- * output.
+ * is not a whole contig, the grain of shard cuts and the composition blocks. Everything here but the
+ * composition blocks changes speed and memory, never the output.
  */
 public final class Geometry {
     /**
@@ -18,6 +18,13 @@ public final class Geometry {
     public static final int MAX_WINDOW = 1_000_000_000;
     /** Cuts of a split run inside a contig fall on multiples of this many bases. */
     public static final int SHARD_GRAIN = 1_000_000;
+    /**
+     * Composition blocks: the background of the log-odds score is the composition of the block of this many
+     * bases (from each contig's first base; a last piece under half a block joins the one before) that holds
+     * a locus' first base. Blocks are fixed by the contig alone, so no cut changes the output; a region or
+     * shard piece is read out to whole blocks.
+     */
+    public static final int COMPOSITION_BLOCK = 1_000_000;
     /** Each time the context around a stretch turns out too short, its margin grows by this factor. */
     static final int MARGIN_GROWTH = 4;
 

@@ -6,13 +6,14 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Future;
 import java.util.function.LongConsumer;
-import stria.io.ContigBytes;
 import stria.out.LocusSink;
 import stria.repeats.RunList;
+import stria.score.Background;
 import stria.score.Locus;
 import stria.score.LocusCaller;
 import stria.score.NeedMoreContextException;
 import stria.score.ScoreSettings;
+import stria.score.ScoreWorkspace;
 
 /**
  * Imperfect loci: the unit keeps the scorer's seed runs and hands them to {@link LocusCaller} in independent
@@ -51,7 +52,7 @@ final class ImperfectMode implements ScanMode {
     }
 
     @Override
-    public Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out) {
+    public Pass pass(ScanUnit unit, ContigStore seq, WindowPlan plan, LocusSink out) {
         RunList seeds = new RunList();
         String name = unit.contig().name();
         return new Pass() {
@@ -64,11 +65,14 @@ final class ImperfectMode implements ScanMode {
 
             @Override
             public void finish(ExecutorService pool, LongConsumer solved) throws InterruptedException {
+                // every block the scorer reads is in by now: the windows have read the whole stretch
+                Background background = seq.background();
                 List<Future<List<Locus>>> parts = new ArrayList<>();
                 for (long a = unit.from(); a < unit.to(); a += chunk) {
                     int from = (int) a;
                     int to = (int) Math.min(unit.to(), a + chunk);
-                    parts.add(pool.submit(() -> caller.call(seq, seeds, plan.lo(), plan.hi(), from, to)));
+                    parts.add(pool.submit(() -> caller.call(new ScoreWorkspace(), seq, background, seeds, plan.lo(),
+                            plan.hi(), from, to)));
                 }
                 // a whole contig has all the context there is: its chunks are written as they are ready;
                 // a part is written only once every chunk had context enough
@@ -98,6 +102,7 @@ final class ImperfectMode implements ScanMode {
                         all.addAll(loci);
                     }
                 }
+                more |= !stream && ScanMode.reachLeavesContext(all, out.reach(), plan, unit.contig().length());
                 if (more) {
                     throw new NeedMoreContextException("a locus of " + unit.region() + " may reach past the context");
                 }

@@ -1,9 +1,10 @@
 package stria.pipeline;
 
+import java.util.List;
 import java.util.concurrent.ExecutorService;
 import java.util.function.LongConsumer;
-import stria.io.ContigBytes;
 import stria.out.LocusSink;
+import stria.score.Locus;
 import stria.score.NeedMoreContextException;
 
 /**
@@ -26,8 +27,29 @@ sealed interface ScanMode permits ExactMode, ImperfectMode {
     /** The share of a unit's progress that finding its runs earns; turning them into loci earns the rest. */
     double findShare();
 
-    /** One pass over the runs of a unit's context {@code plan} (read into {@code seq}), loci to {@code out}. */
-    Pass pass(ScanUnit unit, ContigBytes seq, WindowPlan plan, LocusSink out);
+    /**
+     * One pass over the runs of a unit's context {@code plan} (read into {@code seq}, which also knows the
+     * composition of the blocks read), loci to {@code out}.
+     */
+    Pass pass(ScanUnit unit, ContigStore seq, WindowPlan plan, LocusSink out);
+
+    /**
+     * Whether the sink's {@link LocusSink#reach reach} beside one of {@code loci} leaves the context
+     * {@code plan} of a unit that is not a whole contig (where the contig does not end first); the context must
+     * then be widened like for a locus that may reach beyond it.
+     */
+    static boolean reachLeavesContext(List<Locus> loci, int reach, WindowPlan plan, int contigLength) {
+        if (reach == 0) {
+            return false;
+        }
+        for (Locus l : loci) {
+            if ((plan.lo() > 0 && l.start() - reach < plan.lo())
+                    || (plan.hi() < contigLength && (long) l.end() + reach > plan.hi())) {
+                return true;
+            }
+        }
+        return false;
+    }
 
     /** Receives the stitched runs of the context, then delivers the unit's loci. */
     interface Pass extends Stitcher.Sink {

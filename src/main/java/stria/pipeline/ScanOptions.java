@@ -31,8 +31,15 @@ public final class ScanOptions {
     public static final int IMPERFECT_MIN_LENGTH = 12;
     /** The score already gates weak loci (0.60-0.75 give the same calls on the benchmark); 0.80 drops true ones. */
     public static final double IMPERFECT_MIN_PURITY = 0.70;
-    /** 18 net matches: keeps every planted locus 30 keeps, chance loci in random DNA drop from ~35 to ~6 per Mb. */
-    public static final int IMPERFECT_MIN_SCORE = 36;
+    /** No bound of its own: the evalue bound is the default score filter. */
+    public static final double IMPERFECT_MIN_SCORE = 0;
+    /**
+     * At most 5 loci per Mb of random sequence, as many as the former fixed score bound let through. On
+     * bench/planted.sh: recall 0.9755 at 1, 0.9823 at 5, 0.9835 at 10; precision 0.9983, 0.9967, 0.9951;
+     * 5 is the loosest bound that keeps every figure of the fixed bound to the loci of each kind (10 lets
+     * twice as many chance loci through).
+     */
+    public static final double IMPERFECT_MAX_EVALUE = 5;
 
     private final Mode mode;
     private Integer minPeriod;
@@ -40,7 +47,8 @@ public final class ScanOptions {
     private Double minCopies;
     private Integer minLength;
     private Double minPurity;
-    private Integer minScore;
+    private Double minScore;
+    private Double maxEvalue;
     private int threads = Runtime.getRuntime().availableProcessors();
     private Long window;
 
@@ -53,7 +61,7 @@ public final class ScanOptions {
         return mode == Mode.EXACT
                 ? new ScoreSettings(MIN_PERIOD, MAX_PERIOD, EXACT_MIN_COPIES, EXACT_MIN_LENGTH, 1.0, 0)
                 : new ScoreSettings(MIN_PERIOD, MAX_PERIOD, IMPERFECT_MIN_COPIES, IMPERFECT_MIN_LENGTH,
-                        IMPERFECT_MIN_PURITY, IMPERFECT_MIN_SCORE);
+                        IMPERFECT_MIN_PURITY, IMPERFECT_MIN_SCORE, IMPERFECT_MAX_EVALUE);
     }
 
     public ScanOptions minPeriod(Integer v) {
@@ -81,8 +89,15 @@ public final class ScanOptions {
         return this;
     }
 
-    public ScanOptions minScore(Integer v) {
+    /** Lowest score in bits. */
+    public ScanOptions minScore(Double v) {
         minScore = v;
+        return this;
+    }
+
+    /** Highest evalue; infinity for no bound. */
+    public ScanOptions maxEvalue(Double v) {
+        maxEvalue = v;
         return this;
     }
 
@@ -109,21 +124,26 @@ public final class ScanOptions {
         double minC = minCopies != null ? minCopies : d.minCopies();
         int minL = minLength != null ? minLength : d.minLength();
         double minPur = minPurity != null ? minPurity : d.minPurity();
-        int minS = minScore != null ? minScore : d.minScore();
+        double minS = minScore != null ? minScore : d.minScore();
+        double maxE = maxEvalue != null ? maxEvalue : d.maxEvalue();
         require(minP >= 1, "--min-period must be at least 1 (got " + minP + ")");
         require(maxP >= 1 && maxP <= MAX_PERIOD_LIMIT,
                 "--max-period must be between 1 and 1,000,000 (got " + maxP + ")");
         require(minP <= maxP, "--min-period " + minP + " is above --max-period " + maxP);
-        require(minC >= 0 && !Double.isNaN(minC), "--min-copies must not be negative (got " + minC + ")");
+        require(Double.isFinite(minC), "--min-copies must be a finite number (got " + minC + ")");
+        require(minC >= 0, "--min-copies must not be negative (got " + minC + ")");
         require(minL >= 0, "--min-length must not be negative (got " + minL + ")");
         require(minPur >= 0 && minPur <= 1, "--min-purity must be between 0 and 1 (got " + minPur + ")");
+        require(minS >= 0 && !Double.isInfinite(minS) && !Double.isNaN(minS),
+                "--min-score must be a number of bits, 0 or more (got " + minS + ")");
+        require(maxE >= 0 && !Double.isNaN(maxE), "--max-evalue must not be negative (got " + maxE + ")");
         require(threads >= 1 && threads <= MAX_THREADS,
                 "--threads must be between 1 and 1024 (got " + threads + ")");
         int minWin = Geometry.minWindow(maxP);
         require(window == null || (window >= minWin && window <= Geometry.MAX_WINDOW), "--window must be between "
                 + minWin + " (4 x max-period + 8) and 1G (got " + window + ")");
         int win = window == null ? Geometry.defaultWindow(maxP) : (int) (long) window;
-        return new ScanSettings(mode, new ScoreSettings(minP, maxP, minC, minL, minPur, minS), threads, win);
+        return new ScanSettings(mode, new ScoreSettings(minP, maxP, minC, minL, minPur, minS, maxE), threads, win);
     }
 
     private static void require(boolean ok, String message) {

@@ -1,6 +1,7 @@
 package stria.pipeline;
 
 import stria.score.ScoreSettings;
+import stria.score.ScoringModel;
 
 /**
  * What the engine and the scorer need, built once (by {@link ScanOptions}) and passed down unchanged. What to
@@ -42,8 +43,11 @@ public record ScanSettings(Mode mode, ScoreSettings filters, int threads, int wi
         sb.append(" min-length=").append(f.minLength());
         if (!exact()) {
             sb.append(" min-purity=").append(stripZeros(f.minPurity()));
-            sb.append(" min-score=").append(f.minScore());
+            sb.append(" min-score=").append(stripZeros(f.minScore()));
+            sb.append(" max-evalue=").append(Double.isInfinite(f.maxEvalue()) ? "none" : stripZeros(f.maxEvalue()));
         }
+        // exact runs are scored too: the model shapes their score and evalue columns
+        sb.append(" score-model=").append(ScoringModel.DESCRIPTION);
         return sb.toString();
     }
 

@@ -21,6 +21,11 @@ final class WindowRunner {
      * next window takes the one last used, whose buffers are likeliest still in cache.
      */
     private final ConcurrentLinkedDeque<WindowRuns.Workspace> workspaces = new ConcurrentLinkedDeque<>();
+    /**
+     * Fails once, when the scan cannot go on (the reader failed): every wait for a window also waits on it,
+     * so no window left uncompleted by a failure can hold the scan.
+     */
+    private final CompletableFuture<Void> aborted = new CompletableFuture<>();
 
     WindowRunner(ExecutorService pool, int maxPeriod, WindowRuns.Keep keep) {
         this.pool = pool;
@@ -28,9 +33,14 @@ final class WindowRunner {
         this.keep = keep;
     }
 
+    /** Ends every wait for a window, now and later, with {@code cause}. */
+    void abort(Throwable cause) {
+        aborted.completeExceptionally(cause);
+    }
+
     /** The windows of {@code plan}, not started yet. */
     Windows windows(WindowPlan plan, Semaphore permits) {
-        return new Windows(plan, permits);
+        return new Windows(plan, permits, aborted);
     }
 
     /**
@@ -67,11 +77,13 @@ final class WindowRunner {
         final WindowPlan plan;
         private final Semaphore permits;
         private final CompletableFuture<WindowRuns>[] runs;
+        private final CompletableFuture<Void> aborted;
 
         @SuppressWarnings("unchecked")
-        private Windows(WindowPlan plan, Semaphore permits) {
+        private Windows(WindowPlan plan, Semaphore permits, CompletableFuture<Void> aborted) {
             this.plan = plan;
             this.permits = permits;
+            this.aborted = aborted;
             this.runs = new CompletableFuture[plan.count()];
             for (int k = 0; k < runs.length; k++) {
                 runs[k] = new CompletableFuture<>();
@@ -87,6 +99,7 @@ final class WindowRunner {
             for (int k = 0; k < runs.length; k++) {
                 WindowRuns r;
                 try {
+                    CompletableFuture.anyOf(runs[k], aborted).get();
                     r = runs[k].get();
                 } catch (ExecutionException e) {
                     throw GenomeScan.unchecked(e.getCause());

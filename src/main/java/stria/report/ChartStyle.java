@@ -50,6 +50,8 @@ final class ChartStyle {
     /** Fill and outline of a density profile. */
     static final Color PROFILE_FILL = new Color(0xe8833a);
     static final Color PROFILE_LINE = new Color(0xb5521a);
+    /** N gaps in the density charts: a neutral grey, unlike any share colour. */
+    static final Color GAP = new Color(0x7b8794);
 
     static final Color[] DENSITY_STOPS = {
             new Color(0xfff4d6), new Color(0xfdd08a), new Color(0xf59e3b), new Color(0xd4581c), new Color(0x8c2a0e),

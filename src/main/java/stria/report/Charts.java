@@ -135,6 +135,9 @@ final class Charts {
         return svg(ChartStyle.classChart(p), s.drawn() > 8 ? 460 : 360, "shares");
     }
 
+    /** Gaps drawn per contig at most: the longest, so a scaffold of thousands of gaps stays drawable. */
+    static final int MAX_GAPS_DRAWN = 500;
+
     /** A filled profile of one contig: reads better than a strip when only a few contigs exist. */
     static String densityProfile(RepeatDensity d, int t) {
         RepeatDensity.Profile pr = d.profile(t);
@@ -156,6 +159,13 @@ final class Charts {
         ar.setDefaultOutlineStroke(new BasicStroke(1f));
         XYPlot plot = new XYPlot(new XYSeriesCollection(s), x, y, ar);
         ChartStyle.plot(plot);
+        double[] gaps = d.drawnGaps(t, RepeatDensity.unitOf(pr.length()), MAX_GAPS_DRAWN);
+        for (int i = 0; i < gaps.length; i += 2) {
+            org.jfree.chart.plot.IntervalMarker m = new org.jfree.chart.plot.IntervalMarker(gaps[i], gaps[i + 1],
+                    ChartStyle.GAP);
+            m.setAlpha(0.55f);
+            plot.addDomainMarker(m, org.jfree.chart.ui.Layer.FOREGROUND);
+        }
         JFreeChart chart = ChartStyle.chart(plot);
         chart.setTitle(ChartStyle.smallTitle(pr.name() + "  \u00b7  " + Fmt.bases(pr.length()) + "  \u00b7  bins of "
                 + Fmt.bases(pr.bin())));
@@ -188,6 +198,13 @@ final class Charts {
         XYPlot p = new XYPlot(ds, x, y, br);
         ChartStyle.plot(p);
         p.setRangeGridlinesVisible(false);
+        for (int t = 0; t < rows; t++) {
+            double[] gaps = d.drawnGaps(t, d.unit(), MAX_GAPS_DRAWN);
+            for (int i = 0; i < gaps.length; i += 2) {
+                p.addAnnotation(new org.jfree.chart.annotations.XYBoxAnnotation(gaps[i], t - 0.39, gaps[i + 1],
+                        t + 0.39, null, null, ChartStyle.GAP));
+            }
+        }
         JFreeChart chart = ChartStyle.chart(p);
         chart.addSubtitle(ChartStyle.scaleLegend(new ChartStyle.Ramp(0, d.scaleMax(), DENSITY_STOPS),
                 "% of bin in repeats", false));

@@ -23,8 +23,17 @@ public final class HtmlReport {
     }
 
     public static void write(ResultSet r, Summary s, OutputStream os) {
+        write(r, s, Gaps.unknown(r.header().contigs().size()), null, os);
+    }
+
+    /**
+     * The page, with the N gaps of the genome (shares over sequenced bases, gaps drawn) and, when
+     * {@code changed} is not null, the most-changed loci of a compare result.
+     */
+    public static void write(ResultSet r, Summary s, Gaps gaps, String compareResult, OutputStream os) {
         PrintWriter out = new PrintWriter(new OutputStreamWriter(os, StandardCharsets.UTF_8), false);
-        new Page(r, s, out).write();
+        ChangedLoci changed = compareResult == null ? null : ChangedLoci.read(compareResult, LongestLoci.SHOWN);
+        new Page(r, s, gaps, changed, out).write();
         out.flush();
         if (out.checkError()) {
             // PrintWriter keeps I/O errors to itself; a half-written page must not be committed
@@ -36,11 +45,15 @@ public final class HtmlReport {
         private final ResultSet r;
         private final Summary s;
         private final PrintWriter out;
+        private final Gaps gaps;
+        private final ChangedLoci changed;
 
-        Page(ResultSet r, Summary s, PrintWriter out) {
+        Page(ResultSet r, Summary s, Gaps gaps, ChangedLoci changed, PrintWriter out) {
             this.r = r;
             this.s = s;
             this.out = out;
+            this.gaps = gaps;
+            this.changed = changed;
         }
 
         void write() {
@@ -63,6 +76,10 @@ public final class HtmlReport {
                 motifs();
                 density();
                 lengthPurity();
+                longest();
+            }
+            if (changed != null) {
+                changed();
             }
             provenance();
             out.println("<footer><p><strong>Research use only.</strong> These results describe sequence "
@@ -93,10 +110,16 @@ public final class HtmlReport {
         private void cards() {
             Summary.Row g = s.genome();
             out.println("<section class=\"cards\">");
-            card("bases scanned", Fmt.bases(g.scanned()), Fmt.count(g.scanned()) + " bp");
+            if (gaps.known()) {
+                card("sequenced bases", Fmt.bases(g.scanned()), Fmt.count(g.scanned()) + " bp; N gaps of "
+                        + Fmt.bases(gaps.total(r)) + " excluded");
+            } else {
+                card("bases scanned", Fmt.bases(g.scanned()), Fmt.count(g.scanned()) + " bp");
+            }
             card("loci", Fmt.count(g.loci()), perMb(g.loci(), g.scanned()));
             card("bases in repeats", Fmt.bases(g.repeatBases()), "overlaps counted once");
-            card("share in repeats", Fmt.percent(g.share()), "of the bases scanned");
+            card("share in repeats", Fmt.percent(g.share()), gaps.known() ? "of the sequenced bases (N gaps excluded)"
+                    : "of the bases scanned (N gaps not known: report --genome excludes them)");
             out.println("</section>");
         }
 
@@ -228,8 +251,9 @@ public final class HtmlReport {
 
         private void density() {
             out.println("<section><h2>Repeat density along the contigs</h2>");
-            RepeatDensity d = RepeatDensity.of(r);
-            String bin = "Share of each bin of " + Fmt.bases(d.bin()) + " that lies in repeats";
+            RepeatDensity d = RepeatDensity.of(r, gaps);
+            String bin = "Share of the sequenced bases of each bin of " + Fmt.bases(d.bin()) + " that lies in repeats"
+                    + (!gaps.known() ? " (N gaps not known)" : d.hasGaps() ? "; N gaps in grey" : "; no N gaps");
             int total = DrawnContigs.scanned(r);
             String rest = total > d.size()
                     ? " The " + d.size() + " longest of " + Fmt.count(total) + " contigs are drawn."
@@ -262,6 +286,48 @@ public final class HtmlReport {
                         Charts.lengthPurity(LengthPurityGrid.of(r)));
             }
             out.println("</section>");
+        }
+
+        private void longest() {
+            LongestLoci l = LongestLoci.of(r, LongestLoci.SHOWN);
+            out.println("<section><h2>The longest loci</h2>");
+            out.println("<div class=\"scroll\"><table class=\"num\"><thead><tr><th>locus</th><th>length</th>"
+                    + "<th>period</th><th>motif class</th><th>purity</th></tr></thead><tbody>");
+            for (LongestLoci.Row row : l.rows()) {
+                out.println("<tr><td class=\"t\">" + esc(row.contig() + ":" + Fmt.count(row.start() + 1L) + "-"
+                        + Fmt.count(row.end())) + "</td><td>" + Fmt.count(row.length()) + "</td><td>" + row.period()
+                        + "</td><td class=\"t\"><code>" + esc(Fmt.ellipsize(row.motifClass(), 40)) + "</code></td><td>"
+                        + String.format(java.util.Locale.ROOT, "%.3f", row.purity()) + "</td></tr>");
+            }
+            out.println("</tbody></table></div><p class=\"caption\">The " + l.rows().size() + " longest loci, "
+                    + "longest first; positions 1-based, inclusive.</p></section>");
+        }
+
+        private void changed() {
+            out.println("<section><h2>The most-changed loci</h2>");
+            out.println("<div class=\"scroll\"><table class=\"num\"><thead><tr><th>locus</th><th>period</th>"
+                    + "<th>motif class</th><th>in the other assembly</th><th>strand</th><th>length change</th>"
+                    + "<th>status</th></tr></thead><tbody>");
+            for (java.util.Map<String, String> row : changed.rows()) {
+                out.println("<tr><td class=\"t\">" + esc(span(row.get("chrom"), row.get("start"), row.get("end")))
+                        + "</td><td>" + esc(row.get("period")) + "</td><td class=\"t\"><code>"
+                        + esc(Fmt.ellipsize(row.get("motif_class"), 40)) + "</code></td><td class=\"t\">"
+                        + esc(span(row.get("other_chrom"), row.get("other_start"), row.get("other_end")))
+                        + "</td><td>" + esc(row.get("other_strand")) + "</td><td>" + esc(row.get("length_change"))
+                        + "</td><td class=\"t\">" + esc(row.get("status")) + "</td></tr>");
+            }
+            out.println("</tbody></table></div><p class=\"caption\">From " + esc(changed.file()) + ": the "
+                    + changed.rows().size() + " of " + Fmt.count(changed.ranked()) + " paired loci whose length "
+                    + "changed most (largest change in bases first); positions 1-based, inclusive.</p></section>");
+        }
+
+        /** A 0-based, end-exclusive span as people read it, or the fields as they are when not numbers. */
+        private static String span(String chrom, String start, String end) {
+            try {
+                return chrom + ":" + Fmt.count(Long.parseLong(start) + 1) + "-" + Fmt.count(Long.parseLong(end));
+            } catch (NumberFormatException e) {
+                return chrom + ":" + start + "-" + end;
+            }
         }
 
         private void provenance() {

@@ -16,9 +16,12 @@ import java.util.List;
  *                 least 1 and at most 100, so a few satellite-filled bins do not wash out the rest
  * @param unit     bases per unit of the shared position axis (1, 1e3 or 1e6), by the longest contig
  * @param unitName bp, kb or Mb
+ * @param gaps     per contig drawn, its N gaps inside the scanned spans ({@link Gaps}; empty when unknown) as
+ *                 flattened {@code [start, end)} pairs; their bases are not counted as scanned, and the charts
+ *                 draw them
  */
 record RepeatDensity(List<String> names, long[] lengths, long bin, double[][] percent, double scaleMax,
-                     double unit, String unitName) {
+                     double unit, String unitName, long[][] gaps) {
 
     /**
      * One contig's bins as a step profile: a point at every bin start (in units of {@code unitName}) and one
@@ -34,6 +37,10 @@ record RepeatDensity(List<String> names, long[] lengths, long bin, double[][] pe
     private static final int LONGEST_NAME = 22;
 
     static RepeatDensity of(ResultSet r) {
+        return of(r, Gaps.unknown(r.header().contigs().size()));
+    }
+
+    static RepeatDensity of(ResultSet r, Gaps gapsOf) {
         List<Integer> top = DrawnContigs.of(r);
         List<String> names = new ArrayList<>();
         long[] lengths = new long[top.size()];
@@ -45,6 +52,7 @@ record RepeatDensity(List<String> names, long[] lengths, long bin, double[][] pe
         }
         long bin = niceBin(longest / 300.0);
         double[][] pct = new double[top.size()][];
+        long[][] gaps = new long[top.size()][];
         List<Double> all = new ArrayList<>();
         for (int t = 0; t < top.size(); t++) {
             int c = top.get(t);
@@ -54,6 +62,14 @@ record RepeatDensity(List<String> names, long[] lengths, long bin, double[][] pe
             long[] spans = r.scanned().get(c);
             for (int i = 0; i < spans.length; i += 2) {
                 addSpan(scanned, bin, spans[i], spans[i + 1]);
+            }
+            gaps[t] = clip(gapsOf.of(c), spans);
+            double[] gapBases = new double[nb];
+            for (int i = 0; i < gaps[t].length; i += 2) {
+                addSpan(gapBases, bin, gaps[t][i], gaps[t][i + 1]);
+            }
+            for (int b = 0; b < nb; b++) {
+                scanned[b] -= gapBases[b];
             }
             double[] cov = new double[nb];
             ContigLoci l = r.loci().get(c);
@@ -88,7 +104,65 @@ record RepeatDensity(List<String> names, long[] lengths, long bin, double[][] pe
         }
         max = niceCeil(max);
         double unit = unitOf(longest);
-        return new RepeatDensity(List.copyOf(names), lengths, bin, pct, Math.min(100, max), unit, unitName(unit));
+        return new RepeatDensity(List.copyOf(names), lengths, bin, pct, Math.min(100, max), unit, unitName(unit),
+                gaps);
+    }
+
+    /** The parts of the sorted spans {@code g} inside the sorted, disjoint spans {@code within}. */
+    static long[] clip(long[] g, long[] within) {
+        long[] out = new long[g.length + within.length];
+        int n = 0;
+        for (int i = 0; i < g.length; i += 2) {
+            for (int k = 0; k < within.length; k += 2) {
+                long lo = Math.max(g[i], within[k]);
+                long hi = Math.min(g[i + 1], within[k + 1]);
+                if (lo < hi) {
+                    if (n + 2 > out.length) {
+                        out = java.util.Arrays.copyOf(out, 2 * out.length + 2);
+                    }
+                    out[n++] = lo;
+                    out[n++] = hi;
+                }
+            }
+        }
+        return java.util.Arrays.copyOf(out, n);
+    }
+
+    /**
+     * The gaps of contig {@code t} to draw, in units of {@code u}: neighbours closer than a tenth of a bin
+     * joined and at most {@code max} kept (the longest), so a scaffold of thousands of gaps stays drawable.
+     */
+    double[] drawnGaps(int t, double u, int max) {
+        long[] g = gaps[t];
+        List<long[]> joined = new ArrayList<>();
+        for (int i = 0; i < g.length; i += 2) {
+            if (!joined.isEmpty() && g[i] - joined.get(joined.size() - 1)[1] < Math.max(1, bin / 10)) {
+                joined.get(joined.size() - 1)[1] = g[i + 1];
+            } else {
+                joined.add(new long[] {g[i], g[i + 1]});
+            }
+        }
+        if (joined.size() > max) {
+            joined.sort((a, b) -> Long.compare(b[1] - b[0], a[1] - a[0]));
+            joined = new ArrayList<>(joined.subList(0, max));
+            joined.sort((a, b) -> Long.compare(a[0], b[0]));
+        }
+        double[] out = new double[2 * joined.size()];
+        for (int i = 0; i < joined.size(); i++) {
+            out[2 * i] = joined.get(i)[0] / u;
+            out[2 * i + 1] = joined.get(i)[1] / u;
+        }
+        return out;
+    }
+
+    /** Whether any drawn contig has a gap. */
+    boolean hasGaps() {
+        for (long[] g : gaps) {
+            if (g.length > 0) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /** The profile of contig {@code t}: its own position unit, and a percent axis up to a nice number above its bins. */
@@ -160,7 +234,7 @@ record RepeatDensity(List<String> names, long[] lengths, long bin, double[][] pe
         }
     }
 
-    private static double unitOf(long length) {
+    static double unitOf(long length) {
         return length >= 1_000_000 ? 1e6 : length >= 1_000 ? 1e3 : 1;
     }
 

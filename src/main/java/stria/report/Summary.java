@@ -5,7 +5,7 @@ import java.util.List;
 import stria.Intervals;
 
 /**
- * Bases scanned, loci and bases in repeats, for the genome and for each contig, split by
+ * Bases scanned (without the N gaps when they are known, see {@link Gaps}), loci and bases in repeats, for the genome and for each contig, split by
  * {@link PeriodClass}. Bases in repeats are counted on the union of the loci, so a base covered by two
  * overlapping loci counts once; the same holds within each period class, but a base covered by loci of two
  * classes counts in both, so the class columns may add up to more than the total.
@@ -43,12 +43,18 @@ public final class Summary {
     }
 
     public static Summary of(ResultSet r) {
+        return of(r, Gaps.unknown(r.header().contigs().size()));
+    }
+
+    /** As {@link #of(ResultSet)}, with the bases scanned counted without the N gaps. */
+    public static Summary of(ResultSet r, Gaps gaps) {
         int k = PeriodClass.values().length;
         List<Row> rows = new ArrayList<>();
         long gScanned = 0, gLoci = 0, gBases = 0;
         long[] gClassLoci = new long[k], gClassBases = new long[k];
         for (int c = 0; c < r.header().contigs().size(); c++) {
-            Row row = contigRow(r.header().contigs().get(c).name(), r.scannedBases(c), r.loci().get(c));
+            long sequenced = r.scannedBases(c) - gaps.inside(c, r.scanned().get(c));
+            Row row = contigRow(r.header().contigs().get(c).name(), sequenced, r.loci().get(c));
             rows.add(row);
             gScanned += row.scanned();
             gLoci += row.loci();

@@ -1,6 +1,8 @@
 package stria.report;
 
-import java.io.PrintStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.charset.StandardCharsets;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -19,7 +21,8 @@ public final class SummaryTsv {
             "row per contig in input order.%n" +
             "  level          genome or contig%n" +
             "  name           contig name ('.' on the genome row)%n" +
-            "  bases_scanned  contig length, or its bases inside #region spans%n" +
+            "  bases_scanned  contig length, or its bases inside #region spans; without%n" +
+            "                 the N gaps when --genome is given%n" +
             "  loci           number of loci%n" +
             "  repeat_bases   bases inside at least one locus (overlaps count once)%n" +
             "  repeat_share   repeat_bases / bases_scanned, 6 decimals%n" +
@@ -40,14 +43,19 @@ public final class SummaryTsv {
         return c;
     }
 
-    public static void write(Summary s, PrintStream out) {
+    /** Writes the table to {@code out} (UTF-8) and flushes it. */
+    public static void write(Summary s, OutputStream out) {
         StringBuilder sb = new StringBuilder(String.join("\t", columns())).append('\n');
         row(sb, "genome", ".", s.genome());
         for (Summary.Row r : s.contigs()) {
             row(sb, "contig", r.name(), r);
         }
-        out.print(sb);
-        out.flush();
+        try {
+            out.write(sb.toString().getBytes(StandardCharsets.UTF_8));
+            out.flush();
+        } catch (IOException e) {
+            throw stria.StriaException.io("cannot write the summary", e);
+        }
     }
 
     private static void row(StringBuilder sb, String level, String name, Summary.Row r) {

@@ -15,7 +15,9 @@ import java.util.List;
  * its start against its consensus, with an X-drop wide enough to cross {@link #GAP_UNITS} units of
  * unrelated bases, and its copies vote on the consensus again. The realigned locus replaces every piece
  * (and every locus of another period between them) that it reaches the end of, when it reaches at least the
- * second piece, passes the filters, and keeps at least half of the pieces' summed score. So an array is
+ * second piece, passes the filters, keeps at least half of the pieces' summed score, and is at most
+ * {@link #PURITY_LOSS} less pure than its least pure piece (two arrays of nearly the same unit at different
+ * identities, one after the other, stay apart: one consensus explains them worse than each its own). So an array is
  * split only where it is really interrupted: by more than {@link #GAP_UNITS} units of unrelated sequence,
  * or where its unit changes (a piece of another period, or of the same length but unrelated bases, which
  * stops the alignment).
@@ -30,6 +32,9 @@ final class ArrayJoin {
     static final int GAP_UNITS = 3;
     /** Periods of one array's pieces differ by at most this fraction. */
     static final double PERIOD_TOLERANCE = 0.05;
+
+    /** A joined locus may be this much less pure than its least pure piece (the break itself costs some). */
+    static final double PURITY_LOSS = 0.03;
 
     private ArrayJoin() {
     }
@@ -115,9 +120,14 @@ final class ArrayJoin {
 
     private static boolean accepted(LocusFilter filter, List<Candidate> won, int i, int reached, Candidate m) {
         long sum = 0;
+        double purity = 1;
         for (int j = i; j <= reached; j++) {
             sum += won.get(j).score;
+            if (Math.abs(won.get(j).period - won.get(i).period) <= PERIOD_TOLERANCE * won.get(i).period) {
+                purity = Math.min(purity, won.get(j).purity());
+            }
         }
-        return filter.accepts(m) && m.score >= won.get(i).score && 2L * m.score >= sum;
+        return filter.accepts(m) && m.score >= won.get(i).score && 2L * m.score >= sum
+                && m.purity() >= purity - PURITY_LOSS;
     }
 }

@@ -15,7 +15,10 @@ final class Candidate {
     final int period;
     final byte[] motif;
     final int phaseA;
+    /** Alignment score in units of {@link ScoringModel}. */
     final int score;
+    /** The model the score is in: that of the block holding {@code start}. */
+    final ScoringModel model;
     final int matches;
     final int mismatches;
     final int insertions;
@@ -25,19 +28,21 @@ final class Candidate {
     final int subunitPeriod;
     final int subunits;
 
-    Candidate(int start, byte[] motif, int phaseA, int score, VoteTally.PathCounts counts, int[] phaseAt) {
-        this(start, motif, phaseA, score, counts.matches(), counts.mismatches(), counts.insertions(),
+    Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, VoteTally.PathCounts counts,
+              int[] phaseAt) {
+        this(start, motif, phaseA, score, model, counts.matches(), counts.mismatches(), counts.insertions(),
                 counts.deletions(), phaseAt, 0, 0);
     }
 
-    private Candidate(int start, byte[] motif, int phaseA, int score, int matches, int mismatches, int insertions,
-                      int deletions, int[] phaseAt, int subunitPeriod, int subunits) {
+    private Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, int matches,
+                      int mismatches, int insertions, int deletions, int[] phaseAt, int subunitPeriod, int subunits) {
         this.start = start;
         this.end = start + phaseAt.length;
         this.period = motif.length;
         this.motif = motif;
         this.phaseA = phaseA;
         this.score = score;
+        this.model = model;
         this.matches = matches;
         this.mismatches = mismatches;
         this.insertions = insertions;
@@ -49,7 +54,7 @@ final class Candidate {
 
     /** The same candidate with its motif made of {@code subunits} diverged units of {@code subunitPeriod}. */
     Candidate withSubunits(int subunitPeriod, int subunits) {
-        return new Candidate(start, motif, phaseA, score, matches, mismatches, insertions, deletions, phaseAt,
+        return new Candidate(start, motif, phaseA, score, model, matches, mismatches, insertions, deletions, phaseAt,
                 subunitPeriod, subunits);
     }
 
@@ -62,7 +67,8 @@ final class Candidate {
         return cols == 0 ? 0 : matches / (double) cols;
     }
 
-    Locus toLocus(byte[] seq) {
+    /** The locus, with its score in bits and its evalue under {@code calibration}. */
+    Locus toLocus(byte[] seq, Calibration calibration) {
         char[] m = new char[period];
         for (int i = 0; i < period; i++) {
             m[i] = (char) Bases.letter(motif[(phaseA + i) % period]);
@@ -70,7 +76,8 @@ final class Candidate {
         String motifText = new String(m);
         int len = end - start;
         return new Locus(start, end, period, motifText, MotifClass.of(motifText), len / (double) period,
-                purity(), mismatches, insertions, deletions, score, entropy(seq, start, end), subunitPeriod, subunits);
+                purity(), mismatches, insertions, deletions, ScoringModel.bits(score),
+                calibration.evalue(model.gcClass(), score), entropy(seq, start, end), subunitPeriod, subunits);
     }
 
     static double entropy(byte[] seq, int start, int end) {

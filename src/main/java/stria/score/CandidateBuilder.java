@@ -17,12 +17,15 @@ final class CandidateBuilder {
     static final int VOTE_ROUNDS = 3;
 
     private final byte[] seq;
+    private final Background background;
     private final WrapAligner right;
     private final WrapAligner left;
     private final VoteTally tally;
 
-    CandidateBuilder(byte[] seq, ScoreWorkspace ws) {
+    /** @param background the composition at every position of {@code seq} */
+    CandidateBuilder(byte[] seq, Background background, ScoreWorkspace ws) {
         this.seq = seq;
+        this.background = background;
         this.right = ws.right;
         this.left = ws.left;
         this.tally = ws.tally;
@@ -32,9 +35,13 @@ final class CandidateBuilder {
         return seq;
     }
 
-    /** Score drop that ends an extension: a long unit may carry a burst of errors and still continue. */
+    /**
+     * Score drop that ends an extension, in score units: 26 bits, and 0.87 bits more per base of the unit up
+     * to 60, since a long unit may carry a burst of errors and still continue (about 15 uniform matches, and
+     * one more per unit base up to 60).
+     */
     static int xdrop(int p) {
-        return 30 + Math.min(p, 60);
+        return ScoringModel.PER_BIT * 26 + ScoringModel.PER_BIT * 87 * Math.min(p, 60) / 100;
     }
 
     /**
@@ -52,11 +59,13 @@ final class CandidateBuilder {
             m0[k] = (byte) code;
         }
         int xd = xdrop(p);
+        // the model of the seed's own block: a position decides it, never the cut that holds it
+        ScoringModel model = background.at(s);
         // the provisional consensus is voted on the first copies only; the final one on the whole locus.
         // Both ends are found before any vote is counted: most candidates fail the length test and their
         // paths are never walked
-        right.extend(seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
-        left.extend(seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
+        right.extend(model, seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
+        left.extend(model, seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
         int leftLen = left.bestI();
         if (leftLen + right.bestI() < p + LocusCaller.SEED_EXTRA) {
             return null;
@@ -104,7 +113,8 @@ final class CandidateBuilder {
     /**
      * The alignment against {@code motif} repeated from phase {@code phaseA} at the fixed left end
      * {@code a}, over at most {@code cap} bases: gives the right end, the counts and the phase of every
-     * base, and leaves its votes in the workspace's tally. Null when not one base aligns.
+     * base, and leaves its votes in the workspace's tally. Scored with the model of the block holding
+     * {@code a}. Null when not one base aligns.
      */
     Candidate align(int a, byte[] motif, int phaseA, int cap) {
         return align(a, motif, phaseA, cap, 1);
@@ -112,7 +122,8 @@ final class CandidateBuilder {
 
     private Candidate align(int a, byte[] motif, int phaseA, int cap, int dropScale) {
         int p = motif.length;
-        right.extend(seq, a, 1, motif, p, phaseA, cap, xdrop(p) * dropScale);
+        ScoringModel model = background.at(a);
+        right.extend(model, seq, a, 1, motif, p, phaseA, cap, xdrop(p) * dropScale);
         int len = right.bestI();
         if (len == 0) {
             return null;
@@ -120,6 +131,6 @@ final class CandidateBuilder {
         int[] phaseAt = new int[len];
         tally.clear(p);
         VoteTally.PathCounts counts = tally.addPath(right, seq, a, 1, motif, phaseA, 0, phaseAt);
-        return new Candidate(a, motif, phaseA, right.bestScore(), counts, phaseAt);
+        return new Candidate(a, motif, phaseA, right.bestScore(), model, counts, phaseAt);
     }
 }

@@ -35,7 +35,8 @@ import stria.repeats.RunList;
  * does not fix the period; the result is reduced to its primitive root. A last alignment against the
  * consensus from the left end gives the right end and the counts, and up to
  * {@link CandidateBuilder#VOTE_ROUNDS} more rounds vote on that alignment while the score rises
- * ({@link CandidateBuilder}). Where the bases agree better at a neighbouring
+ * ({@link CandidateBuilder}). Every alignment scores its columns as log-odds in bits
+ * ({@link ScoringModel}) against the background of the block that holds its first base ({@link Background}). Where the bases agree better at a neighbouring
  * distance or about as well at a near-divisor of the period, that period gets a candidate of its own;
  * units of {@link PeriodAlternatives#NEIGHBOUR_MIN_PERIOD} bases or more with few copies also try the periods one off,
  * since a handful of copies votes unreliably on the length of a long unit. A candidate whose copies
@@ -44,8 +45,8 @@ import stria.repeats.RunList;
  * the extension runs through them.
  *
  * <h2>One locus, one period</h2>
- * Candidates that share bases compete ({@link Competition}). Each has a strength, its alignment score
- * less one point per motif base: the charge for the motif keeps a long consensus from winning by memorising the errors of
+ * Candidates that share bases compete ({@link Competition}). Each has a strength, its log-odds score
+ * less a charge per motif base ({@link Competition#MOTIF_CHARGE}): the charge for the motif keeps a long consensus from winning by memorising the errors of
  * a short repeat. Among candidates linked by overlap, the set that overlaps at most at its edges and has
  * the largest total strength wins (weighted interval scheduling), so two neighbours that explain their
  * parts well beat one longer unit that mixes them. Winners are taken strongest first (ties: shorter
@@ -112,7 +113,10 @@ public final class LocusCaller {
         return RecurrenceSeeds.WINDOW + RecurrenceSeeds.K + 64 + 2 * settings.maxPeriod() + 32;
     }
 
-    /** Safe to call from several threads at once: each call works in a workspace of its own. */
+    /**
+     * The loci on the uniform background. Safe to call from several threads at once: each call works in a
+     * workspace of its own.
+     */
     public List<Locus> call(byte[] seq, int length, RunList seeds, int lo, int hi, int from, int to) {
         return call(ContigBytes.of(seq, length), seeds, lo, hi, from, to);
     }
@@ -122,11 +126,16 @@ public final class LocusCaller {
      * only the stretch being solved, plus {@link #readPad} on each side, is copied out.
      */
     public List<Locus> call(ContigBytes seq, RunList seeds, int lo, int hi, int from, int to) {
-        return call(new ScoreWorkspace(), seq, seeds, lo, hi, from, to);
+        return call(new ScoreWorkspace(), seq, Background.uniform(), seeds, lo, hi, from, to);
     }
 
-    /** As {@link #call(ContigBytes, RunList, int, int, int, int)}, in a workspace the caller keeps per thread. */
-    public List<Locus> call(ScoreWorkspace ws, ContigBytes seq, RunList seeds, int lo, int hi, int from, int to) {
+    /**
+     * As {@link #call(ContigBytes, RunList, int, int, int, int)}, scored against the contig's
+     * {@code background} (which must know every block the call reads), in a workspace the caller keeps per
+     * thread.
+     */
+    public List<Locus> call(ScoreWorkspace ws, ContigBytes seq, Background background, RunList seeds, int lo, int hi,
+                            int from, int to) {
         if (from >= to) {
             return List.of();
         }
@@ -137,8 +146,8 @@ public final class LocusCaller {
         while (true) {
             int a = (int) Math.max(lo, from - pad);
             int b = (int) Math.min(hi, to + pad);
-            List<Locus> r = whole != null ? solve(ws, whole, seq.length(), seeds, a, b, from, to)
-                    : solveSlice(ws, seq, seeds, a, b, from, to);
+            List<Locus> r = whole != null ? solve(ws, whole, seq.length(), background, seeds, a, b, from, to)
+                    : solveSlice(ws, seq, background, seeds, a, b, from, to);
             if (r != null) {
                 return r;
             }
@@ -151,8 +160,8 @@ public final class LocusCaller {
     }
 
     /** {@link #solve} on a copy of {@code [lo - readPad, hi + readPad)}, in contig coordinates. */
-    private List<Locus> solveSlice(ScoreWorkspace ws, ContigBytes seq, RunList seeds, int lo, int hi, int from,
-                                   int to) {
+    private List<Locus> solveSlice(ScoreWorkspace ws, ContigBytes seq, Background background, RunList seeds, int lo,
+                                   int hi, int from, int to) {
         int length = seq.length();
         int base = Math.max(0, lo - readPad());
         int end = (int) Math.min(length, (long) hi + readPad());
@@ -166,7 +175,8 @@ public final class LocusCaller {
                 local.add(s - base, e - base, seeds.period(i));
             }
         }
-        List<Locus> r = solve(ws, slice, length - base, local, lo - base, hi - base, from - base, to - base);
+        List<Locus> r = solve(ws, slice, length - base, background.shifted(base), local, lo - base, hi - base,
+                from - base, to - base);
         if (r == null || base == 0) {
             return r;
         }
@@ -178,8 +188,8 @@ public final class LocusCaller {
     }
 
     /** The loci of [from, to) computed from what is known in [lo, hi), or null if that cannot be decided. */
-    private List<Locus> solve(ScoreWorkspace ws, byte[] seq, int length, RunList runs, int lo, int hi, int from,
-                              int to) {
+    private List<Locus> solve(ScoreWorkspace ws, byte[] seq, int length, Background background, RunList runs, int lo,
+                              int hi, int from, int to) {
         RunList seeds = Seeds.known(ws.recurrence, seq, length, runs, lo, hi, settings.maxPeriod());
         QuietPoints quiet = QuietPoints.of(seeds, length);
         // a quiet point must lie far enough inside [lo, hi) that every seed near it is known exactly
@@ -189,7 +199,7 @@ public final class LocusCaller {
         if (q1 < (lo == 0 ? 0 : lo + margin() + rmax) || q2 > (hi >= length ? length : hi - margin() - rmax)) {
             return null;
         }
-        CandidateBuilder builder = new CandidateBuilder(seq, ws);
+        CandidateBuilder builder = new CandidateBuilder(seq, background, ws);
         List<Candidate> cands = candidates(builder, seeds, quiet, q1, q2);
         List<Candidate> won = Competition.resolve(cands, (k, g0, g1) -> trimmed(builder, k, g0, g1));
         won = ArrayJoin.join(builder, filter, quiet, won);
@@ -198,7 +208,7 @@ public final class LocusCaller {
             Candidate k = won.get(i);
             if (k.start >= from && k.start < to) {
                 int stop = i + 1 < won.size() ? won.get(i + 1).start : quiet.end(quiet.componentAt(k.start));
-                out.add(NestedUnits.of(builder, filter, settings.maxPeriod(), k, stop - k.start).toLocus(seq));
+                out.add(NestedUnits.of(builder, filter, settings.maxPeriod(), k, stop - k.start).toLocus(seq, filter.calibration()));
             }
         }
         return out;

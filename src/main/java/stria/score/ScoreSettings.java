@@ -9,8 +9,14 @@ package stria.score;
  * @param minCopies  smallest copy number (length / period) reported
  * @param minLength  shortest locus reported, in bases
  * @param minPurity  lowest purity reported (imperfect mode)
- * @param minScore   lowest alignment score reported (imperfect mode)
+ * @param minScore   lowest log-odds score reported, in bits (imperfect mode)
+ * @param maxEvalue  highest evalue reported (imperfect mode; infinity for none)
  */
 public record ScoreSettings(int minPeriod, int maxPeriod, double minCopies, int minLength, double minPurity,
-                            int minScore) {
+                            double minScore, double maxEvalue) {
+    /** Settings without an evalue bound. */
+    public ScoreSettings(int minPeriod, int maxPeriod, double minCopies, int minLength, double minPurity,
+                         double minScore) {
+        this(minPeriod, maxPeriod, minCopies, minLength, minPurity, minScore, Double.POSITIVE_INFINITY);
+    }
 }

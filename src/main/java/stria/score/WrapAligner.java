@@ -13,16 +13,10 @@ import stria.io.Bases;
  *
  * <p>One instance per thread; it reuses its buffers, so a call allocates nothing once they have grown.
  * After {@link #extend} the path to the best cell can be walked column by column ({@link #beginPath},
- * {@link #nextColumn}).
+ * {@link #nextColumn}). Columns are scored by a {@link ScoringModel} (log-odds in tenths of a bit), the
+ * same model that scores the reported locus.
  */
 public final class WrapAligner {
-    /** Reward of a text base equal to the motif letter it is aligned with. */
-    public static final int MATCH = 2;
-    /** Cost of a substitution: one and a half matches, so 60 % identity is the break-even point. */
-    public static final int MISMATCH = -3;
-    /** Cost of each inserted or deleted base: a little dearer than a substitution. */
-    public static final int GAP = -5;
-
     /** Half-width of the band: net drift tolerated between two rows is far smaller. */
     static final int HALF = 6;
     static final int BAND = 2 * HALF + 1;
@@ -47,6 +41,7 @@ public final class WrapAligner {
     // (letter 0 unused), grown on demand; one load per cell instead of a comparison and a select
     private byte[][] tscore = new byte[4][1024];
     private int tmplLen;
+    private ScoringModel model;
 
     // result of the last extend
     private int bestI;
@@ -82,9 +77,13 @@ public final class WrapAligner {
      * Extends from {@code pos0} in direction {@code dir} (+1 or -1) over at most {@code cap} bases. Text
      * base number {@code i} (from 1) is {@code codes(seq[pos0 + dir * (i - 1)])}; template letter number
      * {@code j} (from 1) is {@code motif[mod(phase + dir * (j - 1), p)]}. A base that is not A, C, G or T
-     * ends the text.
+     * ends the text. Columns score as {@code model} says; {@code xdrop} is in its units.
      */
-    public void extend(byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap, int xdrop) {
+    public void extend(ScoringModel model, byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap,
+                       int xdrop) {
+        this.model = model;
+        int insScore = model.insertion();
+        int delScore = model.deletion();
         // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable;
         // the pads are never written, so only the band of the first row needs resetting
         int[] prev = this.prev;
@@ -134,10 +133,10 @@ public final class WrapAligner {
                 // as selects rather than branches; ties keep the same order of preference (diagonal, then
                 // insertion, then deletion) and the first best cell of the row
                 int best = diag + sc[lo + k];
-                int ins = up + GAP;
+                int ins = up + insScore;
                 int op = ins > best ? INS : DIAG;
                 best = Math.max(best, ins);
-                int del = left + GAP;
+                int del = left + delScore;
                 op = del > best ? DEL : op;
                 best = Math.max(best, del);
                 cur[PAD + k] = best;
@@ -229,16 +228,20 @@ public final class WrapAligner {
         byte[] s3 = tscore[3];
         // letter x (from 1) is motif[mod(phase + dir * (x - 1), p)]; the first period is read from the
         // motif, the rest is copied from whole periods before, in blocks
+        ScoringModel m = model;
+        byte m0 = (byte) m.match(0), m1 = (byte) m.match(1), m2 = (byte) m.match(2), m3 = (byte) m.match(3);
+        byte x0 = (byte) m.substitution(0), x1 = (byte) m.substitution(1), x2 = (byte) m.substitution(2);
+        byte x3 = (byte) m.substitution(3);
         int x = Math.max(tmplLen, 1);
         int direct = Math.min(n, 1 + p);
         if (x < direct) {
             int ph = Math.floorMod(phase + dir * (x - 1), p);
             for (; x < direct; x++) {
                 byte letter = motif[ph];
-                s0[x] = (byte) (letter == 0 ? MATCH : MISMATCH);
-                s1[x] = (byte) (letter == 1 ? MATCH : MISMATCH);
-                s2[x] = (byte) (letter == 2 ? MATCH : MISMATCH);
-                s3[x] = (byte) (letter == 3 ? MATCH : MISMATCH);
+                s0[x] = letter == 0 ? m0 : x0;
+                s1[x] = letter == 1 ? m1 : x1;
+                s2[x] = letter == 2 ? m2 : x2;
+                s3[x] = letter == 3 ? m3 : x3;
                 ph += dir;
                 if (ph == p) {
                     ph = 0;

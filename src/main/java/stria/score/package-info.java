@@ -11,11 +11,15 @@
  * {@code PeriodAlternatives} and {@code CompoundSplit} (more candidates from one), the filter
  * ({@link stria.score.LocusFilter}, also the rule for exact runs) and {@code Competition} (one period per
  * base). {@link stria.score.Locus} is the record every writer prints, {@link stria.score.ExactLocus} builds
- * it for an exact run, {@link stria.score.MotifClass} gives the canonical motif. The pipeline may call with
+ * it for an exact run, {@link stria.score.MotifClass} gives the canonical motif. Every alignment is scored
+ * by one {@link stria.score.ScoringModel} (log-odds in tenths of a bit) chosen by position from the contig's
+ * {@link stria.score.Background} (composition blocks), and {@link stria.score.Calibration} turns a score into
+ * its evalue. The pipeline may call with
  * any window or shard cut: the caller's contract makes the output independent of them.
  *
  * <p>May use: {@code stria.io} (base codes, {@code ContigBytes}) and {@code stria.repeats} ({@code RunList})
- * only, plus the JDK. Nothing here reads files, starts threads or knows about the command line; hot loops
+ * only, plus the JDK. Nothing here reads files (but the shipped calibration table, a class-path resource),
+ * starts threads or knows about the command line; hot loops
  * stay on primitive arrays.
  */
 package stria.score;

@@ -8,9 +8,11 @@ import java.util.Comparator;
 import java.util.List;
 import stria.StriaException;
 import stria.io.ContigInfo;
+import stria.out.Gff3;
 import stria.out.ResultFormat;
 import stria.out.ResultHeader;
 import stria.out.ResultInput;
+import stria.out.ResultSeal;
 
 /**
  * Joins the results of the shards of one split run into the result a single run would have written.
@@ -23,11 +25,17 @@ import stria.out.ResultInput;
  */
 public final class ShardMerge {
 
-    /** The first line of a TSV result after the {@code #} lines. */
-    private static final String TSV_COLUMNS_START = "chrom\t";
+    /** The {@code #} lines of the result header; others (a format's own) are copied from the first shard. */
+    private static final List<String> HEADER_PREFIXES = List.of(ResultHeader.PREFIX_TOOL,
+            ResultHeader.PREFIX_COMMAND, ResultHeader.PREFIX_SETTINGS, ResultHeader.PREFIX_INPUT,
+            ResultHeader.PREFIX_CONTIG, ResultHeader.PREFIX_SHARD, ResultHeader.PREFIX_REGION);
 
-    /** What the header of one shard result says. */
-    record Part(String file, ResultHeader header, String inputLine, String columns, ResultFormat format, ShardId id) {
+    /**
+     * What the header of one shard result says. {@code leading} are the lines before the {@code #stria} line
+     * (GFF3 pragmas), {@code extra} the format's own {@code #} lines after the result header.
+     */
+    record Part(String file, ResultHeader header, String inputLine, String columns, ResultFormat format, ShardId id,
+                List<String> leading, List<String> extra) {
         int k() {
             return id.k();
         }
@@ -70,7 +78,7 @@ public final class ShardMerge {
         }
         if (first.format != format) {
             throw new StriaException(first.file + " is a " + first.format.name() + " result, not "
-                    + format.name() + ": merge it with --" + first.format.name().toLowerCase(java.util.Locale.ROOT));
+                    + format.name() + ": merge it with " + first.format.option());
         }
         for (Part p : parts) {
             if (p.n() != first.n()) {
@@ -95,6 +103,11 @@ public final class ShardMerge {
             if (p.columns != null && !p.columns.equals(first.columns)) {
                 throw new StriaException(first.file + " and " + p.file + " have different TSV columns");
             }
+            // the pragmas follow from the contigs, equal by the #input check
+            if (!p.extra.equals(first.extra)) {
+                throw new StriaException(first.file + " and " + p.file + " were written with different output "
+                        + "settings (their own # lines differ)");
+            }
         }
         Part[] byK = new Part[first.n() + 1];
         for (Part p : parts) {
@@ -115,7 +128,13 @@ public final class ShardMerge {
         }
         List<Part> ordered = new ArrayList<>(parts);
         ordered.sort(Comparator.comparingInt(Part::k));
-        return new ShardMerge(ordered, format, first.header.contigs());
+        ShardMerge merge = new ShardMerge(ordered, format, first.header.contigs());
+        // every shard proven whole before a byte is written (standard output cannot be taken back)
+        Order order = merge.order();
+        for (Part p : ordered) {
+            copyData(p, null, order);
+        }
+        return merge;
     }
 
     /**
@@ -130,13 +149,21 @@ public final class ShardMerge {
     /** Writes the merged result (header, TSV column row, data lines of shards 1..n) to {@code out}. */
     public void writeTo(OutputStream out, String command) {
         try {
+            Part first = parts.get(0);
+            // GFF3 pragmas list every contig: made again from the one contig list kept
+            for (String l : format == ResultFormat.GFF ? Gff3.pragmas(contigs) : first.leading) {
+                writeLine(out, l);
+            }
             for (String l : header(command).lines()) {
                 writeLine(out, l);
             }
-            if (format == ResultFormat.TSV) {
-                writeLine(out, parts.get(0).columns);
+            for (String l : first.extra) {
+                writeLine(out, l);
             }
-            Order order = new Order(contigs);
+            if (format.columnRow() != null) {
+                writeLine(out, first.columns);
+            }
+            Order order = order();
             for (Part p : parts) {
                 copyData(p, out, order);
             }
@@ -145,6 +172,14 @@ public final class ShardMerge {
         }
     }
 
+    private Order order() {
+        int columns = format.columnRow() != null ? parts.get(0).columns.split("\t", -1).length : NINE_COLUMNS;
+        return new Order(contigs, format, columns);
+    }
+
+    /** BED6+3 (chrom start end motif score strand period copies motif_class) and GFF3 both have nine. */
+    private static final int NINE_COLUMNS = 9;
+
     /**
      * Tracks the position of the last data line. Shards of one run own disjoint, ordered stretches, so a
      * line that goes backwards, or repeats the line before it, means shards that do not fit together (an
@@ -152,32 +187,55 @@ public final class ShardMerge {
      */
     private static final class Order {
         private final java.util.Map<String, Integer> rank = new java.util.HashMap<>();
+        private final int[] lengths;
+        private final int columns;
         private int lastRank = -1;
         private long lastStart = -1;
         private String lastLine = "";
         private String lastFile = "";
+        private final ResultFormat format;
 
-        Order(List<ContigInfo> contigs) {
+        Order(List<ContigInfo> contigs, ResultFormat format, int columns) {
+            this.format = format;
+            this.lengths = new int[contigs.size()];
+            this.columns = columns;
             for (int i = 0; i < contigs.size(); i++) {
-                rank.put(contigs.get(i).name(), i);
+                rank.put(format.contigText(contigs.get(i).name()), i);
+                lengths[i] = contigs.get(i).length();
             }
         }
 
-        void check(String file, String line) {
-            int t1 = line.indexOf('\t');
-            int t2 = t1 < 0 ? -1 : line.indexOf('\t', t1 + 1);
-            Integer r = t2 < 0 ? null : rank.get(line.substring(0, t1));
+        void check(String file, long lineNo, String line) {
+            String where = file + " line " + lineNo;
+            int sc = format.startColumn();
+            String[] f = line.split("\t", Math.max(format.contigColumn(), sc + 1) + 2);
+            boolean enough = f.length > Math.max(format.contigColumn(), sc + 1);
+            Integer r = enough ? rank.get(f[format.contigColumn()]) : null;
             long start;
+            long end;
             try {
-                start = r == null ? -1 : Long.parseLong(line.substring(t1 + 1, t2));
+                start = r == null ? -1 : Long.parseLong(f[sc]);
+                end = r == null ? -1 : Long.parseLong(f[sc + 1]);
+                if (format == ResultFormat.GFF && r != null) {
+                    start--; // 1-based inclusive
+                }
             } catch (NumberFormatException e) {
                 start = -1;
+                end = -1;
             }
-            if (r == null || start < 0) {
-                throw new StriaException(file + ": not a locus of this genome: " + abbreviate(line));
+            if (r == null || start < 0 || end <= start || end > lengths[r]) {
+                throw new StriaException(where + ": not a locus of this genome: " + abbreviate(line));
+            }
+            int n = 1;
+            for (int i = line.indexOf('\t'); i >= 0; i = line.indexOf('\t', i + 1)) {
+                n++;
+            }
+            if (n != columns) {
+                throw new StriaException(where + ": " + n + " columns where a result has " + columns + ": "
+                        + abbreviate(line));
             }
             if (r < lastRank || (r == lastRank && start < lastStart) || line.equals(lastLine)) {
-                throw new StriaException(file + ": locus " + abbreviate(line) + " comes after "
+                throw new StriaException(where + ": locus " + abbreviate(line) + " comes after "
                         + abbreviate(lastLine) + (lastFile.equals(file) ? "" : " of " + lastFile)
                         + "; these shard results overlap or are out of order");
             }
@@ -193,23 +251,52 @@ public final class ShardMerge {
         }
     }
 
+    /**
+     * Reads the data lines of one shard, checks each ({@link Order}) and the closing line against the body
+     * ({@link ResultSeal}), and copies them to {@code out} unless it is null.
+     */
     private static void copyData(Part p, OutputStream out, Order order) {
+        ResultSeal body = new ResultSeal();
+        String closing = null;
         try (ResultInput r = ResultInput.open(p.file, StandardCharsets.ISO_8859_1)) {
             String line;
             boolean inHeader = true;
+            long lineNo = 0;
             while ((line = r.readLine()) != null) {
+                lineNo++;
+                if (closing != null) {
+                    throw new StriaException(p.file + " line " + lineNo + ": a line after the closing "
+                            + ResultSeal.PREFIX.strip() + " line; the file is damaged");
+                }
+                if (line.startsWith(ResultSeal.PREFIX)) {
+                    closing = line;
+                    continue;
+                }
                 if (inHeader) {
                     if (line.startsWith("#")) {
                         continue;
                     }
                     inHeader = false;
-                    if (p.format == ResultFormat.TSV) {
+                    if (p.format.columnRow() != null) {
                         continue; // the column row
                     }
                 }
-                order.check(p.file, line);
-                writeOrFail(out, line);
+                order.check(p.file, lineNo, line);
+                body.line(line);
+                if (out != null) {
+                    writeOrFail(out, line);
+                }
             }
+        }
+        if (closing == null) {
+            throw new StriaException(p.file + " is incomplete: it does not end with the " + ResultSeal.PREFIX.strip()
+                    + " line that scan --shard writes last (cut short, or emptied); scan shard " + p.id + " again");
+        }
+        String expected = body.closingLine();
+        if (!closing.equals(expected)) {
+            throw new StriaException(p.file + " is damaged: its closing line says "
+                    + closing.substring(ResultSeal.PREFIX.length()) + " but its loci give "
+                    + expected.substring(ResultSeal.PREFIX.length()) + "; scan shard " + p.id + " again");
         }
     }
 
@@ -229,15 +316,27 @@ public final class ShardMerge {
 
     private static Part readPart(String file, boolean keepContigs) {
         List<String> lines = new ArrayList<>();
+        List<String> leading = new ArrayList<>();
+        List<String> extra = new ArrayList<>();
+        boolean started = false;
         String firstOther = null;
         try (ResultInput r = ResultInput.open(file, StandardCharsets.ISO_8859_1)) {
             String line;
             while ((line = r.readLine()) != null) {
+                if (line.startsWith(stria.out.ResultSeal.PREFIX)) {
+                    break; // the closing line of a shard without loci: the body check reads it
+                }
                 if (!line.startsWith("#")) {
                     firstOther = line;
                     break;
                 }
                 lines.add(line);
+                started |= line.startsWith(ResultHeader.PREFIX_TOOL);
+                if (!started) {
+                    leading.add(line);
+                } else if (HEADER_PREFIXES.stream().noneMatch(line::startsWith)) {
+                    extra.add(line);
+                }
             }
         }
         ResultHeader h;
@@ -267,11 +366,20 @@ public final class ShardMerge {
         } catch (IllegalArgumentException e) {
             throw new StriaException(file + " has a damaged #shard line: " + h.shard());
         }
-        boolean tsv = firstOther != null && firstOther.startsWith(TSV_COLUMNS_START);
+        ResultFormat format = ResultFormat.BED;
+        if (!leading.isEmpty() && leading.get(0).equals(Gff3.VERSION_PRAGMA)) {
+            format = ResultFormat.GFF;
+        } else if (firstOther != null && firstOther.startsWith(ResultFormat.TSV.columnRow().split("\t")[0] + "\t")) {
+            format = ResultFormat.TSV;
+        } else if (firstOther != null && firstOther.startsWith("id\tchrom\t")) {
+            format = ResultFormat.CATALOG;
+        }
         if (!keepContigs) {
             h = new ResultHeader(h.version(), h.command(), h.settings(), List.of(), h.shard(), h.regions());
+            leading = format == ResultFormat.GFF ? List.of(Gff3.VERSION_PRAGMA) : leading;
         }
-        return new Part(file, h, inputLine, tsv ? firstOther : null, tsv ? ResultFormat.TSV : ResultFormat.BED, id);
+        return new Part(file, h, inputLine, format.columnRow() != null ? firstOther : null, format, id,
+                List.copyOf(leading), List.copyOf(extra));
     }
 
     /** 1, 3, 4, 5, 9 as "1, 3-5, 9". */

@@ -210,7 +210,8 @@ public final class CompareBench {
                         Integer.parseInt(f[col.get("period")]), f[col.get("motif")], f[col.get("motif_class")],
                         Double.parseDouble(f[col.get("copies")]), Double.parseDouble(f[col.get("purity")]),
                         Integer.parseInt(f[col.get("mismatches")]), Integer.parseInt(f[col.get("insertions")]),
-                        Integer.parseInt(f[col.get("deletions")]), Integer.parseInt(f[col.get("score")]),
+                        Integer.parseInt(f[col.get("deletions")]), Double.parseDouble(f[col.get("score")]),
+                        Double.parseDouble(f[col.get("evalue")]),
                         Double.parseDouble(f[col.get("entropy")]));
                 out.computeIfAbsent(f[col.get("chrom")], k -> new ArrayList<>()).add(l);
             }

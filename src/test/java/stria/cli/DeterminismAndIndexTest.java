@@ -56,13 +56,15 @@ class DeterminismAndIndexTest {
         for (String[] v : variants) {
             Path bed = dir.resolve("d" + String.join("", v).replace("-", "") + mode.length() + ".bed");
             Path tsv = dir.resolve("d" + String.join("", v).replace("-", "") + mode.length() + ".tsv");
+            Path gff = dir.resolve("d" + String.join("", v).replace("-", "") + mode.length() + ".gff");
+            Path cat = dir.resolve("d" + String.join("", v).replace("-", "") + mode.length() + ".cat.tsv");
             List<String> args = new ArrayList<>(List.of("scan", mode, "--quiet", "--bed", bed.toString(), "--tsv",
-                    tsv.toString()));
+                    tsv.toString(), "--gff", gff.toString(), "--catalog", cat.toString()));
             args.addAll(List.of(v));
             args.add(genome.toString());
             Cli.Result r = Cli.stria(dir, args.toArray(String[]::new));
             assertThat(r.exit()).as(r.err()).isZero();
-            String both = data(bed) + data(tsv);
+            String both = data(bed) + data(tsv) + data(gff) + data(cat);
             if (reference == null) {
                 reference = both;
                 assertThat(both.lines().count()).isGreaterThan(200);

@@ -28,7 +28,7 @@ class MergeCommandTest {
     private static final List<ContigInfo> GENOME = List.of(new ContigInfo("chrA", 5000),
             new ContigInfo("chrB", 3000));
     private static final String COLUMNS = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
-            + "\tmismatches\tinsertions\tdeletions\tscore\tentropy";
+            + "\tmismatches\tinsertions\tdeletions\tscore\tevalue\tentropy";
 
     // shard 1 owns chrA:0-3000, shard 2 chrA:3000-5000, shard 3 chrB (which has no loci)
     private static final List<List<String>> BED = List.of(
@@ -36,9 +36,9 @@ class MergeCommandTest {
             List.of("chrA\t3000\t3012\tA\t1000\t.\t1\t12.00\tA"),
             List.of());
     private static final List<List<String>> TSV = List.of(
-            List.of("chrA\t10\t40\t2\tCA\tAC\t15.00\t30\t1.000\t0\t0\t0\t60\t1.000"),
+            List.of("chrA\t10\t40\t2\tCA\tAC\t15.00\t30\t1.000\t0\t0\t0\t51.8\t2.1e-07\t1.000"),
             List.of(),
-            List.of("chrB\t7\t19\t1\tT\tA\t12.00\t12\t1.000\t0\t0\t0\t24\t0.000"));
+            List.of("chrB\t7\t19\t1\tT\tA\t12.00\t12\t1.000\t0\t0\t0\t18.0\t4.5e+00\t0.000"));
 
     @TempDir
     Path dir;
@@ -247,6 +247,18 @@ class MergeCommandTest {
         return files;
     }
 
+    /** What scan --shard writes last: the data line count and SHA-256 (FIPS 180-4) of the data lines. */
+    static String closingLine(List<String> data) {
+        try {
+            java.security.MessageDigest md = java.security.MessageDigest.getInstance("SHA-256");
+            data.forEach(l -> md.update((l + "\n").getBytes(StandardCharsets.US_ASCII)));
+            return "#end: loci=" + data.size() + " sha256="
+                    + java.util.HexFormat.of().formatHex(md.digest()).substring(0, 16);
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new AssertionError(e);
+        }
+    }
+
     private String writeOne(String name, ResultHeader h, String columns, List<String> data, Compression c) {
         Path p = dir.resolve(name);
         StringBuilder sb = new StringBuilder();
@@ -255,6 +267,7 @@ class MergeCommandTest {
             sb.append(columns).append('\n');
         }
         data.forEach(l -> sb.append(l).append('\n'));
+        sb.append(closingLine(data)).append('\n');
         try (OutputStream raw = Files.newOutputStream(p);
              OutputStream out = switch (c) {
                  case PLAIN -> raw;

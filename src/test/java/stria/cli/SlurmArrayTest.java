@@ -141,6 +141,33 @@ class SlurmArrayTest {
         return submitWith(Map.of(), args);
     }
 
+    @Test
+    void comparisonScansBothSplitsComparesAndMergesAsOneRun() throws IOException {
+        Path a = dir.resolve("a.fa.gz");
+        int made = new CommandLine(new GenomeSimulator()).execute("--out", a.toString(), "--truth",
+                dir.resolve("a.truth.tsv").toString(), "--seed", "31", "--size", "1300000", "--contigs", "3",
+                "--satellites", "0", "--prefix", "asm");
+        assertThat(made).isZero();
+        Path b = dir.resolve("b.fa");
+        stria.sim.AssemblyPairSimulator.write(stria.sim.AssemblyPairSimulator.make(GenomeSimulator.generate("--seed",
+                "31", "--size", "1300000", "--contigs", "3", "--satellites", "0", "--prefix", "asm"),
+                stria.sim.AssemblyPairSimulator.Options.defaults(3)), b, dir.resolve("b.truth.tsv"));
+        Cli.Result single = Cli.stria(dir, "compare", "-q", "--threads", "1", "--tsv", "single.tsv", "--a-bed",
+                "single.a.bed", a.toString(), b.toString());
+        assertThat(single.exit()).as(single.err()).isZero();
+
+        List<String> cmd = List.of(Cli.projectDir().resolve("scripts/slurm/submit-compare.sh").toString(),
+                "--shards", "3", "--scan-shards", "2", "--work", "work", "--tsv", "merged.tsv", "--a-bed", "merged.a.bed",
+                "--sbatch", "--job-name=" + jobName, "--wait", "--", "-q", "--threads", "1", a.toString(), b.toString());
+        Cli.Result r = Cli.exec(dir, null, cmd);
+        assertThat(r.exit()).as("%s%s%s", r.out(), r.err(), logs()).isZero();
+        assertThat(r.out()).contains("scan of a").contains("scan of b").contains("3 parts");
+        assertThat(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve("merged.tsv"))))
+                .isEqualTo(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve("single.tsv"))));
+        assertThat(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve("merged.a.bed"))))
+                .isEqualTo(ShardedScanTest.dataSection(Files.readAllBytes(dir.resolve("single.a.bed"))));
+    }
+
     /** Runs submit-genome.sh with a bounded wait; on timeout the test's jobs are cancelled by name. */
     private Cli.Result submitWith(Map<String, String> env, String... args) {
         List<String> cmd = new ArrayList<>();

@@ -7,7 +7,7 @@ import org.junit.jupiter.api.Test;
 import stria.score.Locus;
 
 class CompareRowTest {
-    private static final Locus CA = new Locus(100, 130, 2, "CA", "AC", 15, 0.9667, 1, 0, 0, 55, 1.0);
+    private static final Locus CA = new Locus(100, 130, 2, "CA", "AC", 15, 0.9667, 1, 0, 0, 46.6, 1e-6, 1.0);
 
     private static String row(ComparedLocus r) {
         StringBuilder sb = new StringBuilder();
@@ -29,7 +29,7 @@ class CompareRowTest {
         ComparedLocus changed = new ComparedLocus("c1", CA, Status.CHANGED, "b2", 5000, 5036, '-', 0.972, null, null);
         ComparedLocus lost = new ComparedLocus("c1", CA, Status.LOST, "b2", 700, 700, '+', Double.NaN, null, null);
         ComparedLocus unplaced = ComparedLocus.unplaced("c1", CA, "left-anchor-not-unique-in-A");
-        ComparedLocus fresh = ComparedLocus.newInB("b3", new Locus(10, 25, 3, "AGC", "AGC", 5, 1.0, 0, 0, 0, 30, 1.58));
+        ComparedLocus fresh = ComparedLocus.newInB("b3", new Locus(10, 25, 3, "AGC", "AGC", 5, 1.0, 0, 0, 0, 25.5, 0.1, 1.58));
         assertThat(row(same)).isEqualTo("c1\t100\t130\t2\tAC\tb7\t90\t120\t+\t0\tsame\tCA\t30\t30\t15.00\t15.00\t0.967\t0.967\t.\n");
         assertThat(row(changed)).isEqualTo("c1\t100\t130\t2\tAC\tb2\t5000\t5036\t-\t6\tchanged\tCA\t30\t36\t15.00\t18.00\t0.967\t0.972\t.\n");
         assertThat(row(lost)).isEqualTo("c1\t100\t130\t2\tAC\tb2\t700\t700\t+\t-30\tlost\tCA\t30\t0\t15.00\t0.00\t0.967\t.\t.\n");

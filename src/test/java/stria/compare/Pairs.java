@@ -16,6 +16,7 @@ import stria.pipeline.ScanSettings;
 import stria.pipeline.Selection;
 import stria.score.Locus;
 import stria.score.MotifClass;
+import stria.score.ScoringModel;
 
 /**
  * Test support: in-memory genomes scanned by the real pipeline, run through the comparison engine in the
@@ -67,7 +68,7 @@ final class Pairs {
     static Locus locus(int start, int end, String motif) {
         int p = motif.length();
         return new Locus(start, end, p, motif, MotifClass.of(motif), (end - start) / (double) p, 1.0, 0, 0, 0,
-                2 * (end - start), 1.0);
+                ScoringModel.bits(ScoringModel.uniform().match(0) * (end - start)), 0, 1.0);
     }
 
     /** A contig with its planted loci. */

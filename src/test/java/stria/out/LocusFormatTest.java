@@ -15,7 +15,7 @@ import stria.score.Locus;
 class LocusFormatTest {
     private static Locus locus(int start, int end, int period, double purity) {
         return new Locus(start, end, period, "A".repeat(period), "A".repeat(period), (end - start) / (double) period,
-                purity, 0, 0, 0, 0, 0.0);
+                purity, 0, 0, 0, 0, 0, 0.0);
     }
 
     private static String column(String line, int index) {
@@ -81,5 +81,44 @@ class LocusFormatTest {
         StringBuilder sb = new StringBuilder();
         LocusFormat.bed(sb, "chr1", locus(100, 130, 2, 0.8765));
         assertThat(sb.toString()).isEqualTo("chr1\t100\t130\tAA\t877\t.\t2\t15.00\tAA\n");
+    }
+
+    /** The evalue against java.util.Formatter's {@code %.1e}, exact zero as 0; repeated values from the cache. */
+    @Test
+    void evalueIsScientificWithOneDecimal() {
+        java.util.Random r = new java.util.Random(16);
+        for (int i = 0; i < 20_000; i++) {
+            double v = Math.pow(10, -300 + 310 * r.nextDouble());
+            for (int twice = 0; twice < 2; twice++) {
+                StringBuilder sb = new StringBuilder();
+                LocusFormat.evalue(sb, v);
+                assertThat(sb.toString()).isEqualTo(String.format(java.util.Locale.ROOT, "%.1e", v));
+            }
+        }
+        StringBuilder sb = new StringBuilder();
+        LocusFormat.evalue(sb, 0);
+        sb.append(' ');
+        LocusFormat.evalue(sb, 3.25e-5);
+        sb.append(' ');
+        LocusFormat.evalue(sb, 12.0);
+        assertThat(sb.toString()).isEqualTo("0 3.3e-05 1.2e+01");
+    }
+
+    @Test
+    void tsvHasTheScoreInBitsAndTheEvalueAfterIt() {
+        Locus l = new Locus(10, 40, 2, "CA", "AC", 15, 1.0, 0, 0, 0, 51.8, 2.13e-7, 1.0);
+        StringBuilder sb = new StringBuilder();
+        LocusFormat.tsv(sb, "c", l);
+        String[] f = sb.toString().strip().split("\t");
+        String[] names = LocusFormat.TSV_HEADER.split("\t");
+        assertThat(f).hasSameSizeAs(names);
+        int score = java.util.Arrays.asList(names).indexOf("score");
+        assertThat(names[score + 1]).isEqualTo("evalue");
+        assertThat(f[score]).isEqualTo("51.8");
+        assertThat(f[score + 1]).isEqualTo("2.1e-07");
+        // BED keeps round(1000 x purity)
+        sb.setLength(0);
+        LocusFormat.bed(sb, "c", l);
+        assertThat(sb.toString().split("\t")[4]).isEqualTo("1000");
     }
 }

@@ -31,7 +31,8 @@ class ScanPlanTest {
         assertThat(h.shard()).isNull();
         assertThat(h.regions()).isEmpty();
         assertThat(h.contigs()).isEqualTo(genome.contigs());
-        assertThat(h.settings()).isEqualTo("mode=exact min-period=1 max-period=2000 min-copies=2 min-length=12");
+        assertThat(h.settings()).isEqualTo("mode=exact min-period=1 max-period=2000 min-copies=2 min-length=12 score-model="
+                + stria.score.ScoringModel.DESCRIPTION);
     }
 
     @Test

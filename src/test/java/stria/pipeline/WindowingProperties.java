@@ -24,13 +24,27 @@ import stria.score.ScoreSettings;
  */
 class WindowingProperties {
 
-    /** A contig with random background, planted exact and mutated arrays, some longer than several windows. */
+    /**
+     * Composition blocks of the scans here: short, so that a contig has several and the background changes
+     * within a window, a chunk and a split piece.
+     */
+    static final int BLOCK = 2_500;
+
+    /**
+     * A contig with random background (its GC content changing every 1,500 bases, so that composition blocks
+     * differ), planted exact and mutated arrays, some longer than several windows.
+     */
     static byte[] genome(long seed, int length, int maxPeriod) {
         Random rnd = new Random(seed);
         byte[] s = new byte[length];
         String acgt = "ACGT";
+        double gc = 0.5;
         for (int i = 0; i < length; i++) {
-            s[i] = (byte) acgt.charAt(rnd.nextInt(4));
+            if (i % 1500 == 0) {
+                gc = 0.15 + 0.7 * rnd.nextDouble();
+            }
+            double x = rnd.nextDouble();
+            s[i] = (byte) acgt.charAt(x < gc / 2 ? 1 : x < gc ? 2 : x < (1 + gc) / 2 ? 0 : 3);
         }
         int arrays = 3 + rnd.nextInt(12);
         for (int a = 0; a < arrays; a++) {
@@ -84,7 +98,7 @@ class WindowingProperties {
             units.add(genome.unit("c", r.lo(), r.hi()));
         }
         List<String> out = new ArrayList<>();
-        new GenomeScan(s, Progress.none(), margin, scoreChunk, inMemoryMax).run(units, new LocusSink() {
+        new GenomeScan(s, Progress.none(), margin, scoreChunk, inMemoryMax, BLOCK).run(units, new LocusSink() {
             @Override
             public void locus(String contig, Locus l) {
                 out.add(full ? l.toString() : l.start() + "-" + l.end() + "/" + l.period());
@@ -181,7 +195,7 @@ class WindowingProperties {
     }
 
     static ScanSettings imperfect(int maxPeriod, int window, int threads) {
-        return new ScanSettings(Mode.IMPERFECT, new ScoreSettings(1, maxPeriod, 2, 12, 0.7, 36), threads, window);
+        return new ScanSettings(Mode.IMPERFECT, new ScoreSettings(1, maxPeriod, 2, 12, 0.7, 0, 10), threads, window);
     }
 
     /**

@@ -18,7 +18,7 @@ import net.jqwik.api.constraints.IntRange;
 class CompetitionProperties {
 
     static Candidate candidate(int start, int length, int period, int score) {
-        return new Candidate(start, new byte[period], 0, score, new VoteTally.PathCounts(length, 0, 0, 0),
+        return new Candidate(start, new byte[period], 0, score, ScoringModel.uniform(), new VoteTally.PathCounts(length, 0, 0, 0),
                 new int[length]);
     }
 

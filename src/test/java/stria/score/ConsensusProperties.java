@@ -74,7 +74,9 @@ class ConsensusProperties {
             assertThat(l.purity()).isEqualTo(agree / (double) l.length());
             assertThat(l.copies()).isEqualTo(l.length() / (double) p);
             assertThat(l.motifClass()).isEqualTo(MotifClass.of(l.motif()));
-            assertThat(l.score()).isEqualTo(WrapAligner.MATCH * agree + WrapAligner.MISMATCH * (l.length() - agree));
+            // no indels: every column a match or a substitution, scored on the uniform background of the call
+            ScoringModel m = ScoringModel.uniform();
+            assertThat(l.score()).isEqualTo(ScoringModel.bits(m.match(0) * agree + m.substitution(0) * (l.length() - agree)));
             int[] comp = new int[4];
             for (int x = l.start(); x < l.end(); x++) {
                 comp["ACGT".indexOf(Character.toUpperCase((char) seq[x]))]++;

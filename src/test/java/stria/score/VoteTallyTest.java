@@ -22,7 +22,7 @@ class VoteTallyTest {
     private static int[] rightwards(String text, int skip, int[] phaseAt, VoteTally.PathCounts[] counts) {
         byte[] seq = ascii(text);
         WrapAligner a = new WrapAligner();
-        a.extend(seq, 0, 1, CAG, 3, 0, seq.length, 100);
+        a.extend(ScoringModel.uniform(), seq, 0, 1, CAG, 3, 0, seq.length, 860);
         assertThat(a.bestI()).isEqualTo(seq.length);
         VoteTally t = new VoteTally();
         t.clear(3);
@@ -37,7 +37,7 @@ class VoteTallyTest {
     private static int[] leftwards(String text) {
         byte[] seq = ascii(text);
         WrapAligner a = new WrapAligner();
-        a.extend(seq, seq.length - 1, -1, CAG, 3, 2, seq.length, 100);
+        a.extend(ScoringModel.uniform(), seq, seq.length - 1, -1, CAG, 3, 2, seq.length, 860);
         assertThat(a.bestI()).isEqualTo(seq.length);
         VoteTally t = new VoteTally();
         t.clear(3);
@@ -149,20 +149,22 @@ class VoteTallyTest {
 
     @Test
     void aRealAlignmentVotesTheInsertionIntoTheMotifInTwoRounds() {
-        // every copy after the first carries an extra T before the G
-        byte[] seq = ascii("CAG" + "CATG".repeat(6));
+        // every copy after the first carries an extra T before the second G: five matches (5 x 17 units) pay
+        // for the insertion (-51) of each copy, on the uniform background
+        byte[] seq = ascii("CAGGA" + "CAGTGA".repeat(6));
+        byte[] cagga = {1, 0, 2, 2, 0};
         WrapAligner a = new WrapAligner();
         VoteTally t = new VoteTally();
-        a.extend(seq, 0, 1, CAG, 3, 0, seq.length, 200);
-        t.clear(3);
-        t.addPath(a, seq, 0, 1, CAG, 0, 3, null);
+        a.extend(ScoringModel.uniform(), seq, 0, 1, cagga, 5, 0, seq.length, 1720);
+        t.clear(5);
+        t.addPath(a, seq, 0, 1, cagga, 0, 5, null);
         // the inserted base first enters as a placeholder (the letter of the phase it precedes) ...
-        byte[] first = Consensus.of(t.counts(), CAG, 0).motif();
-        assertThat(first).containsExactly(1, 0, 2, 2);
+        byte[] first = Consensus.of(t.counts(), cagga, 0).motif();
+        assertThat(first).containsExactly(1, 0, 2, 2, 2, 0);
         // ... which the vote over the alignment against the new motif replaces
-        a.extend(seq, 0, 1, first, 4, 0, seq.length, 200);
-        t.clear(4);
+        a.extend(ScoringModel.uniform(), seq, 0, 1, first, 6, 0, seq.length, 1720);
+        t.clear(6);
         t.addPath(a, seq, 0, 1, first, 0, 0, null);
-        assertThat(Consensus.of(t.counts(), first, 0).motif()).containsExactly(1, 0, 3, 2);
+        assertThat(Consensus.of(t.counts(), first, 0).motif()).containsExactly(1, 0, 2, 3, 2, 0);
     }
 }

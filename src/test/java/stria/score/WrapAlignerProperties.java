@@ -64,8 +64,11 @@ class WrapAlignerProperties {
         int dir = leftwards ? -1 : 1;
         byte[] reading = text(r, motif, phase, dir, 20 + r.nextInt(150), errorsPercent, r.nextInt(60));
         int cap = 1 + r.nextInt(reading.length);
-        int xdrop = 10 + r.nextInt(80);
-        boolean inBand = check(reading, motif, phase, dir, cap, xdrop);
+        // score units are tenths of a bit: a uniform match is 17
+        int xdrop = 80 + r.nextInt(640);
+        // any background class: the scores then depend on the base, and insertions on the text side
+        ScoringModel m = ScoringModel.forClass(r.nextInt(ScoringModel.GC_CLASSES));
+        boolean inBand = check(m, reading, motif, phase, dir, cap, xdrop);
         Statistics.label("optimal path inside the band").collect(inBand);
     }
 
@@ -74,15 +77,15 @@ class WrapAlignerProperties {
     void aLongInsertionNearTheAnchor() {
         byte[] motif = {1, 0, 2}; // CAG
         byte[] reading = "CAGCAGTTTTTTTCAGCAGCAGCAGCAGCAGCAG".getBytes(java.nio.charset.StandardCharsets.US_ASCII);
-        check(reading, motif, 0, 1, reading.length, 60);
-        check(reading, motif, 0, -1, reading.length, 60);
+        check(ScoringModel.uniform(), reading, motif, 0, 1, reading.length, 500);
+        check(ScoringModel.forClass(2), reading, motif, 0, -1, reading.length, 500);
     }
 
     /**
      * Runs the banded aligner on {@code reading} laid out for {@code dir} and checks it against the full
      * table; returns whether an optimal path lies inside the band (and so equality was asserted).
      */
-    private static boolean check(byte[] reading, byte[] motif, int phase, int dir, int cap, int xdrop) {
+    private static boolean check(ScoringModel m, byte[] reading, byte[] motif, int phase, int dir, int cap, int xdrop) {
         int n0 = reading.length;
         byte[] seq = new byte[n0];
         for (int i = 0; i < n0; i++) {
@@ -91,7 +94,7 @@ class WrapAlignerProperties {
         int pos0 = dir > 0 ? 0 : n0 - 1;
         int p = motif.length;
         WrapAligner a = new WrapAligner();
-        a.extend(seq, pos0, dir, motif, p, phase, cap, xdrop);
+        a.extend(m, seq, pos0, dir, motif, p, phase, cap, xdrop);
 
         // text ends at the cap or the first letter that is not a base
         int n = 0;
@@ -101,7 +104,7 @@ class WrapAlignerProperties {
         int rows = a.rows();
         assertThat(rows).isBetween(0, n);
         int cols = 2 * n + WrapAligner.BAND + 2;
-        int[][] d = full(reading, n, motif, phase, dir, cols);
+        int[][] d = full(m, reading, n, motif, phase, dir, cols);
 
         int bestI = 0;
         int bestJ = 0;
@@ -117,9 +120,9 @@ class WrapAlignerProperties {
         assertThat(a.bestI()).isBetween(0, rows);
         assertThat(a.bestScore()).isLessThanOrEqualTo(optimum);
         assertThat(a.bestScore()).isLessThanOrEqualTo(d[a.bestI()][a.bestJ()]);
-        assertThat(walkedScore(a, reading, motif, phase, dir)).isEqualTo(a.bestScore());
+        assertThat(walkedScore(m, a, reading, motif, phase, dir)).isEqualTo(a.bestScore());
 
-        boolean inBand = pathInBand(d, reading, motif, phase, dir, a, bestI, bestJ);
+        boolean inBand = pathInBand(m, d, reading, motif, phase, dir, a, bestI, bestJ);
         if (inBand) {
             assertThat(a.bestScore()).isEqualTo(optimum);
         }
@@ -130,22 +133,23 @@ class WrapAlignerProperties {
         return motif[Math.floorMod(phase + dir * (j - 1), motif.length)];
     }
 
-    private static int sub(byte[] reading, byte[] motif, int phase, int dir, int i, int j) {
-        return Bases.code(reading[i - 1]) == letter(motif, phase, dir, j) ? WrapAligner.MATCH : WrapAligner.MISMATCH;
+    private static int sub(ScoringModel m, byte[] reading, byte[] motif, int phase, int dir, int i, int j) {
+        int b = Bases.code(reading[i - 1]);
+        return b == letter(motif, phase, dir, j) ? m.match(b) : m.substitution(b);
     }
 
     /** The full table: d[i][j] is the best score of a path from the anchor to text row i, template letter j. */
-    private static int[][] full(byte[] reading, int n, byte[] motif, int phase, int dir, int cols) {
+    private static int[][] full(ScoringModel m, byte[] reading, int n, byte[] motif, int phase, int dir, int cols) {
         int[][] d = new int[n + 1][cols + 1];
         for (int j = 1; j <= cols; j++) {
-            d[0][j] = d[0][j - 1] + WrapAligner.GAP;
+            d[0][j] = d[0][j - 1] + m.deletion();
         }
         for (int i = 1; i <= n; i++) {
-            d[i][0] = d[i - 1][0] + WrapAligner.GAP;
+            d[i][0] = d[i - 1][0] + m.insertion();
             for (int j = 1; j <= cols; j++) {
-                int v = d[i - 1][j - 1] + sub(reading, motif, phase, dir, i, j);
-                v = Math.max(v, d[i - 1][j] + WrapAligner.GAP);
-                v = Math.max(v, d[i][j - 1] + WrapAligner.GAP);
+                int v = d[i - 1][j - 1] + sub(m, reading, motif, phase, dir, i, j);
+                v = Math.max(v, d[i - 1][j] + m.insertion());
+                v = Math.max(v, d[i][j - 1] + m.deletion());
                 d[i][j] = v;
             }
         }
@@ -153,7 +157,7 @@ class WrapAlignerProperties {
     }
 
     /** The score of the path the aligner walks back, checked step by step to be a path to the anchor. */
-    private static int walkedScore(WrapAligner a, byte[] reading, byte[] motif, int phase, int dir) {
+    private static int walkedScore(ScoringModel m, WrapAligner a, byte[] reading, byte[] motif, int phase, int dir) {
         int i = a.bestI();
         int j = a.bestJ();
         int score = 0;
@@ -162,17 +166,17 @@ class WrapAlignerProperties {
             assertThat(a.colJ).isEqualTo(j);
             if (op == WrapAligner.DIAG) {
                 assertThat(a.colI).isEqualTo(i);
-                score += sub(reading, motif, phase, dir, i, j);
+                score += sub(m, reading, motif, phase, dir, i, j);
                 i--;
                 j--;
             } else if (op == WrapAligner.INS) {
                 assertThat(a.colI).isEqualTo(i);
-                score += WrapAligner.GAP;
+                score += m.insertion();
                 i--;
             } else {
                 assertThat(op).isEqualTo(WrapAligner.DEL);
                 assertThat(a.colI).isEqualTo(i);
-                score += WrapAligner.GAP;
+                score += m.deletion();
                 j--;
             }
             assertThat(i).isNotNegative();
@@ -187,7 +191,7 @@ class WrapAlignerProperties {
      * Whether one optimal path to (bi, bj) of the full table, traced back preferring the diagonal, then
      * insertion, then deletion, stays inside the band of every row (row 0 holds only the anchor).
      */
-    private static boolean pathInBand(int[][] d, byte[] reading, byte[] motif, int phase, int dir, WrapAligner a,
+    private static boolean pathInBand(ScoringModel m, int[][] d, byte[] reading, byte[] motif, int phase, int dir, WrapAligner a,
                                       int bi, int bj) {
         int i = bi;
         int j = bj;
@@ -199,10 +203,10 @@ class WrapAlignerProperties {
             if (j < lo || j >= lo + WrapAligner.BAND) {
                 return false;
             }
-            if (j > 0 && d[i][j] == d[i - 1][j - 1] + sub(reading, motif, phase, dir, i, j)) {
+            if (j > 0 && d[i][j] == d[i - 1][j - 1] + sub(m, reading, motif, phase, dir, i, j)) {
                 i--;
                 j--;
-            } else if (d[i][j] == d[i - 1][j] + WrapAligner.GAP) {
+            } else if (d[i][j] == d[i - 1][j] + m.insertion()) {
                 i--;
             } else {
                 j--;

@@ -16,9 +16,9 @@ import stria.score.MotifClass;
 /** Invented TSV results in the format of DEVELOPERS.md, for report tests. */
 public final class ResultFixtures {
     public static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
-            + "\tmismatches\tinsertions\tdeletions\tscore\tentropy";
+            + "\tmismatches\tinsertions\tdeletions\tscore\tevalue\tentropy";
     public static final String SETTINGS = "mode=imperfect min-period=1 max-period=2000 min-copies=2 min-length=12 "
-            + "min-purity=0.8 min-score=30";
+            + "min-purity=0.8 min-score=0 max-evalue=5 score-model=" + stria.score.ScoringModel.DESCRIPTION;
 
     private ResultFixtures() {
     }
@@ -30,9 +30,9 @@ public final class ResultFixtures {
     /** A locus row; copies, length and the alignment columns follow from the others. */
     public static String row(String chrom, int start, int end, String motif, double purity) {
         int len = end - start;
-        return String.format(Locale.ROOT, "%s\t%d\t%d\t%d\t%s\t%s\t%.2f\t%d\t%.3f\t%d\t0\t0\t%d\t1.500", chrom, start,
-                end, motif.length(), motif, MotifClass.of(motif), (double) len / motif.length(), len, purity,
-                Math.round(len * (1 - purity)), len * 2);
+        return String.format(Locale.ROOT, "%s\t%d\t%d\t%d\t%s\t%s\t%.2f\t%d\t%.3f\t%d\t0\t0\t%.1f\t%.1e\t1.500",
+                chrom, start, end, motif.length(), motif, MotifClass.of(motif), (double) len / motif.length(), len,
+                purity, Math.round(len * (1 - purity)), 1.7 * len, Math.pow(2, -1.7 * len / 2));
     }
 
     public static Path write(Path file, ResultHeader h, List<String> rows) throws IOException {
