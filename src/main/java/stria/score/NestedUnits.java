@@ -30,7 +30,7 @@ final class NestedUnits {
     static final int MIN_SUBUNIT = 20;
     static final int MAX_UNITS = 16;
     static final double CLEARER = 0.5;
-    static final double BLOCK_AGREEMENT = 0.85;
+    static final double BLOCK_AGREEMENT = 0.8;
     static final double UNIT_AGREEMENT = 0.6;
     private static final int WINDOW = 32;
     private static final int MAX_WINDOWS = 600;
