@@ -36,6 +36,11 @@ final class ArrayJoin {
     /** A joined locus may be this much less pure than its least pure piece (the break itself costs some). */
     static final double PURITY_LOSS = 0.03;
 
+    /** Purity a piece may lose when aligned against the motif of the piece before: one unit family. */
+    static final double UNIT_LOSS = 0.10;
+
+    private static final boolean TRACE = Boolean.getBoolean("stria.trace.join");
+
     private ArrayJoin() {
     }
 
@@ -43,33 +48,64 @@ final class ArrayJoin {
     static List<Candidate> join(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
                                 List<Candidate> won) {
         List<Candidate> out = new ArrayList<>(won.size());
+        // the pieces a joined locus was aligned from: a later join realigns each from its own start
+        List<int[]> starts = new ArrayList<>(won.size());
+        for (Candidate k : won) {
+            starts.add(new int[] {k.start});
+        }
+        List<Candidate> work = new ArrayList<>(won);
         int i = 0;
-        while (i < won.size()) {
-            Candidate a = won.get(i);
-            int next = i + 1;
+        while (i < work.size()) {
+            Candidate a = work.get(i);
             if (a.period >= MIN_PERIOD) {
-                int last = chainEnd(quiet, won, i);
-                if (last > i) {
+                int[] pieces = chain(builder, quiet, work, i);
+                if (pieces.length > 1) {
+                    int last = pieces[pieces.length - 1];
                     int c = quiet.componentAt(a.start);
-                    int stop = last + 1 < won.size() ? Math.min(quiet.end(c), won.get(last + 1).start) : quiet.end(c);
-                    Candidate m = builder.settle(a.start, a.motif, a.phaseA, stop - a.start, dropScale(a.period));
-                    int reached = m == null ? i : reached(won, i, last, m);
-                    if (reached > i) {
-                        // the locus must not end inside a piece it did not absorb
-                        if (reached < won.size() - 1 && won.get(reached + 1).start < m.end) {
-                            m = builder.settle(a.start, a.motif, a.phaseA, won.get(reached + 1).start - a.start,
-                                    dropScale(a.period));
-                            reached = m == null ? i : reached(won, i, reached, m);
+                    int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start)
+                            : quiet.end(c);
+                    int[] from = startsOf(starts, pieces);
+                    Candidate m = builder.settlePieces(from, stop, a.motif, a.phaseA, dropScale(a.period));
+                    if (TRACE) {
+                        StringBuilder t = new StringBuilder("JOIN chain");
+                        for (int j = i; j <= last; j++) {
+                            Candidate w = work.get(j);
+                            t.append(' ').append(w.start).append('-').append(w.end).append('/').append(w.period)
+                                    .append(String.format("/%.3f/%d", w.purity(), w.score));
                         }
+                        t.append(" stop=").append(stop).append(" m=");
+                        t.append(m == null ? "null" : m.start + "-" + m.end + "/" + m.period
+                                + String.format("/%.3f/%d", m.purity(), m.score));
+                        t.append(" acc=").append(m != null && accepted(filter, work, i, last, pieces, m));
+                        System.err.println(t);
                     }
-                    if (reached > i && accepted(filter, won, i, reached, m)) {
-                        a = m;
-                        next = reached + 1;
+                    if (m != null && accepted(filter, work, i, last, pieces, m)) {
+                        // the joined locus may now reach the next piece: it is chained again
+                        work.subList(i + 1, last + 1).clear();
+                        work.set(i, m);
+                        starts.subList(i + 1, last + 1).clear();
+                        starts.set(i, from);
+                        continue;
                     }
                 }
             }
             out.add(a);
-            i = next;
+            i++;
+        }
+        return out;
+    }
+
+    private static int[] startsOf(List<int[]> starts, int[] pieces) {
+        int n = 0;
+        for (int j : pieces) {
+            n += starts.get(j).length;
+        }
+        int[] out = new int[n];
+        n = 0;
+        for (int j : pieces) {
+            int[] s = starts.get(j);
+            System.arraycopy(s, 0, out, n, s.length);
+            n += s.length;
         }
         return out;
     }
@@ -79,55 +115,79 @@ final class ArrayJoin {
         return Math.max(1, GAP_UNITS * period / 45);
     }
 
-    /** Index of the last piece of the chain that starts at {@code i}; {@code i} when there is none. */
-    private static int chainEnd(QuietPoints quiet, List<Candidate> won, int i) {
+    /**
+     * Indices of the pieces of the array whose first piece is {@code i}: {@code i} and each next winner of
+     * a period within {@link #PERIOD_TOLERANCE} that starts no more than {@link #GAP_UNITS} units after the
+     * piece before ends, with no longer locus of another period between them, in the same component of
+     * seed reaches, and explained by the motif of the piece before at most {@link #UNIT_LOSS} less purely
+     * than by its own.
+     */
+    private static int[] chain(CandidateBuilder builder, QuietPoints quiet, List<Candidate> won, int i) {
         Candidate a = won.get(i);
         int c = quiet.componentAt(a.start);
         int gap = GAP_UNITS * a.period;
+        int[] pieces = new int[8];
+        int n = 0;
+        pieces[n++] = i;
+        Candidate u = a;
         int end = a.end;
-        int last = i;
         for (int j = i + 1; j < won.size(); j++) {
             Candidate w = won.get(j);
             if (w.start > end + gap || quiet.componentAt(w.start) != c) {
                 break;
             }
             if (Math.abs(w.period - a.period) <= PERIOD_TOLERANCE * a.period) {
-                last = j;
+                if (!sameUnit(builder, u, w)) {
+                    break;
+                }
+                if (n == pieces.length) {
+                    pieces = java.util.Arrays.copyOf(pieces, 2 * n);
+                }
+                pieces[n++] = j;
+                u = w;
                 end = Math.max(end, w.end);
             } else if (w.length() > gap) {
                 break;
             }
         }
-        return last;
+        return java.util.Arrays.copyOf(pieces, n);
     }
 
-    /** The last index in {@code (i, last]} whose piece ends no later than half a unit past {@code m}. */
-    private static int reached(List<Candidate> won, int i, int last, Candidate m) {
-        int r = i;
-        for (int j = i + 1; j <= last; j++) {
-            if (won.get(j).end <= m.end + m.period / 2) {
-                r = j;
-            }
-        }
-        // a joined locus must reach past at least one piece of the array's period
-        for (int j = r; j > i; j--) {
-            if (Math.abs(won.get(j).period - won.get(i).period) <= PERIOD_TOLERANCE * won.get(i).period) {
-                return r;
-            }
-        }
-        return i;
+    /**
+     * Whether {@code u} and {@code w} are of one unit: the motif of one explains the other over its length
+     * at most {@link #UNIT_LOSS} less purely than its own.
+     */
+    private static boolean sameUnit(CandidateBuilder builder, Candidate u, Candidate w) {
+        return explains(builder, u, w) || explains(builder, w, u);
     }
 
-    private static boolean accepted(LocusFilter filter, List<Candidate> won, int i, int reached, Candidate m) {
+    /** Whether {@code u}'s motif explains {@code w} over its length at most {@link #UNIT_LOSS} less purely. */
+    private static boolean explains(CandidateBuilder builder, Candidate u, Candidate w) {
+        int phase = builder.bestPhase(w.model, w.start, u.motif, w.length(), CandidateBuilder.xdrop(u.period), 0);
+        Candidate k = builder.alignPieces(new int[] {w.start}, w.end, u.motif, phase, dropScale(u.period));
+        if (TRACE) {
+            System.err.println("JOIN unit " + u.start + "-" + u.end + " vs " + w.start + "-" + w.end + " own "
+                    + String.format("%.3f", w.purity()) + " other "
+                    + (k == null ? "null" : k.end + String.format("/%.3f", k.purity())));
+        }
+        return k != null && k.end >= w.end - w.period / 2 && k.purity() >= w.purity() - UNIT_LOSS;
+    }
+
+    private static boolean accepted(LocusFilter filter, List<Candidate> won, int i, int last, int[] pieces,
+                                    Candidate m) {
         long sum = 0;
-        double purity = 1;
-        for (int j = i; j <= reached; j++) {
+        for (int j = i; j <= last; j++) {
             sum += won.get(j).score;
-            if (Math.abs(won.get(j).period - won.get(i).period) <= PERIOD_TOLERANCE * won.get(i).period) {
-                purity = Math.min(purity, won.get(j).purity());
-            }
         }
-        return filter.accepts(m) && m.score >= won.get(i).score && 2L * m.score >= sum
-                && m.purity() >= purity - PURITY_LOSS;
+        long matched = 0;
+        long columns = 0;
+        for (int j : pieces) {
+            Candidate w = won.get(j);
+            matched += w.matches;
+            columns += w.matches + w.mismatches + w.insertions + w.deletions;
+        }
+        double purity = matched / (double) columns;
+        return filter.accepts(m) && m.end >= won.get(last).end - m.period / 2 && m.score >= won.get(i).score
+                && 2L * m.score >= sum && m.purity() >= purity - PURITY_LOSS;
     }
 }

@@ -111,6 +111,141 @@ final class CandidateBuilder {
     }
 
     /**
+     * One alignment over the pieces of one array, against one motif: piece {@code j} is aligned from its own
+     * start {@code starts[j]} (ascending; the first at {@code phase0}, every other at {@link #bestPhase}), no
+     * further than the next piece's start (the last no further than {@code stop}), with the X-drop multiplied
+     * by {@code dropScale}. What the aligner cannot follow between two pieces, a jump of phase (an indel
+     * longer than its band) and the bases between the end of one piece's alignment and the next start, is
+     * charged as the cheapest columns that take the template from the one phase to the other: the gap's g
+     * bases against D template letters, with D the template advance nearest to g, as min(g, D)
+     * substitutions and |g - D| insertions or deletions. Leaves the votes of every piece in the tally.
+     * Null when a piece aligns no base or a gap holds a letter other than ACGT.
+     */
+    Candidate alignPieces(int[] starts, int stop, byte[] motif, int phase0, int dropScale) {
+        int p = motif.length;
+        int a = starts[0];
+        ScoringModel model = background.at(a);
+        int xd = xdrop(p) * dropScale;
+        int[] phaseAt = new int[stop - a];
+        tally.clear(p);
+        long score = 0;
+        int matches = 0;
+        int mismatches = 0;
+        int insertions = 0;
+        int deletions = 0;
+        int end = a;
+        int expected = phase0;
+        for (int j = 0; j < starts.length; j++) {
+            int s = starts[j];
+            int cap = (j + 1 < starts.length ? starts[j + 1] : stop) - s;
+            int phase = j == 0 ? phase0 : bestPhase(model, s, motif, cap, xd, expected);
+            if (j > 0) {
+                int g = s - end;
+                // the template advance over the gap, nearest to g: a phase that goes back by e letters
+                // (D = -e) repeats e letters, charged as e inserted bases
+                int d = Math.floorMod(phase - expected, p);
+                int big = d + p * Math.max(-1, Math.round((g - d) / (float) p));
+                int sub = Math.max(0, Math.min(g, big));
+                for (int x = end; x < s; x++) {
+                    int b = Bases.code(seq[x]);
+                    if (b < 0 || b > 3) {
+                        return null;
+                    }
+                    score += x - end < sub ? model.substitution(b) : model.insertion();
+                    phaseAt[x - a] = (int) Math.floorMod(expected + (long) (x - end) * Math.max(0, big) / Math.max(1, g), p);
+                }
+                int ins = g - sub + Math.max(0, -big);
+                int del = Math.max(0, big - sub);
+                mismatches += sub;
+                insertions += ins;
+                deletions += del;
+                score += (long) Math.max(0, -big) * model.insertion() + (long) del * model.deletion();
+            }
+            right.extend(model, seq, s, 1, motif, p, phase, cap, xd);
+            int len = right.bestI();
+            if (len == 0) {
+                return null;
+            }
+            int[] at = new int[len];
+            VoteTally.PathCounts c = tally.addPath(right, seq, s, 1, motif, phase, 0, at);
+            System.arraycopy(at, 0, phaseAt, s - a, len);
+            score += right.bestScore();
+            matches += c.matches();
+            mismatches += c.mismatches();
+            insertions += c.insertions();
+            deletions += c.deletions();
+            end = s + len;
+            expected = Math.floorMod(phase + right.bestJ(), p);
+        }
+        return new Candidate(a, motif, phase0, (int) Math.min(Integer.MAX_VALUE, score), model,
+                new VoteTally.PathCounts(matches, mismatches, insertions, deletions),
+                Arrays.copyOf(phaseAt, end - a));
+    }
+
+    /**
+     * {@link #alignPieces} followed by up to {@link #VOTE_ROUNDS} rounds of voting on the consensus of all
+     * pieces, each kept only when it raises the score.
+     */
+    Candidate settlePieces(int[] starts, int stop, byte[] motif, int phase0, int dropScale) {
+        Candidate k = alignPieces(starts, stop, motif, phase0, dropScale);
+        for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
+            Consensus next = Consensus.of(tally.counts(), k.motif, k.phaseA);
+            if (next == null || Arrays.equals(next.motif(), k.motif)) {
+                break;
+            }
+            Candidate r = alignPieces(starts, stop, next.motif(), next.phase(), dropScale);
+            if (r == null || r.score <= k.score) {
+                break;
+            }
+            k = r;
+        }
+        return k;
+    }
+
+    /** Phases kept from the first, short trial of every phase for the longer second one. */
+    static final int PHASE_TRIALS = 4;
+
+    /**
+     * The phase of {@code motif} at which the bases from {@code s} align best: every phase is tried over
+     * the first unit and a half, and the {@link #PHASE_TRIALS} best over up to 8 units (at most
+     * {@code cap} bases), since diverged units may favour a wrong phase over one unit, and a wrong phase
+     * dies at the first indel longer than the band; ties go to the phase nearest {@code expected}.
+     */
+    int bestPhase(ScoringModel model, int s, byte[] motif, int cap, int xd, int expected) {
+        int p = motif.length;
+        int n = Math.min(cap, p + p / 2);
+        int[] top = new int[PHASE_TRIALS];
+        int[] topScore = new int[PHASE_TRIALS];
+        java.util.Arrays.fill(topScore, Integer.MIN_VALUE);
+        for (int t = 0; t < p; t++) {
+            // from the expected phase outwards, alternately ahead and behind
+            int phase = Math.floorMod(expected + ((t & 1) == 0 ? t / 2 : -(t + 1) / 2), p);
+            right.extend(model, seq, s, 1, motif, p, phase, n, xd);
+            int sc = right.bestScore();
+            for (int r = 0; r < PHASE_TRIALS; r++) {
+                if (sc > topScore[r]) {
+                    System.arraycopy(top, r, top, r + 1, PHASE_TRIALS - r - 1);
+                    System.arraycopy(topScore, r, topScore, r + 1, PHASE_TRIALS - r - 1);
+                    top[r] = phase;
+                    topScore[r] = sc;
+                    break;
+                }
+            }
+        }
+        int m = Math.min(cap, 8 * p);
+        int best = top[0];
+        int bestScore = Integer.MIN_VALUE;
+        for (int r = 0; r < PHASE_TRIALS && r < p; r++) {
+            right.extend(model, seq, s, 1, motif, p, top[r], m, xd);
+            if (right.bestScore() > bestScore) {
+                bestScore = right.bestScore();
+                best = top[r];
+            }
+        }
+        return best;
+    }
+
+    /**
      * The alignment against {@code motif} repeated from phase {@code phaseA} at the fixed left end
      * {@code a}, over at most {@code cap} bases: gives the right end, the counts and the phase of every
      * base, and leaves its votes in the workspace's tally. Scored with the model of the block holding
