@@ -58,9 +58,12 @@ final class ArrayJoin {
         while (i < work.size()) {
             Candidate a = work.get(i);
             if (a.period >= MIN_PERIOD) {
-                int[] pieces = chain(builder, quiet, work, i);
-                if (pieces.length > 1) {
-                    int last = pieces[pieces.length - 1];
+                int[] chain = chain(builder, quiet, work, i);
+                // a chain refused whole is tried again on its first half, quarter, ..., two pieces
+                boolean joined = false;
+                for (int n = chain.length; n > 1 && !joined; n = n > 2 ? Math.max(2, n / 2) : 1) {
+                    int[] pieces = java.util.Arrays.copyOf(chain, n);
+                    int last = pieces[n - 1];
                     int c = quiet.componentAt(a.start);
                     int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start)
                             : quiet.end(c);
@@ -85,8 +88,11 @@ final class ArrayJoin {
                         work.set(i, m);
                         starts.subList(i + 1, last + 1).clear();
                         starts.set(i, from);
-                        continue;
+                        joined = true;
                     }
+                }
+                if (joined) {
+                    continue;
                 }
             }
             out.add(a);
@@ -188,6 +194,6 @@ final class ArrayJoin {
         }
         double purity = matched / (double) columns;
         return filter.accepts(m) && m.end >= won.get(last).end - m.period / 2 && m.score >= won.get(i).score
-                && 2L * m.score >= sum && m.purity() >= purity - PURITY_LOSS;
+                && 2L * m.score >= sum && m.purity() >= purity - UNIT_LOSS;
     }
 }
