@@ -39,8 +39,6 @@ final class ArrayJoin {
     /** Purity a piece may lose when aligned against the motif of the piece before: one unit family. */
     static final double UNIT_LOSS = 0.10;
 
-    private static final boolean TRACE = Boolean.getBoolean("stria.trace.join");
-
     private ArrayJoin() {
     }
 
@@ -68,20 +66,17 @@ final class ArrayJoin {
                     int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start)
                             : quiet.end(c);
                     int[] from = startsOf(starts, pieces);
-                    Candidate m = builder.settlePieces(from, stop, a.motif, a.phaseA, dropScale(a.period));
-                    if (TRACE) {
-                        StringBuilder t = new StringBuilder("JOIN chain");
-                        for (int j = i; j <= last; j++) {
-                            Candidate w = work.get(j);
-                            t.append(' ').append(w.start).append('-').append(w.end).append('/').append(w.period)
-                                    .append(String.format("/%.3f/%d", w.purity(), w.score));
+                    // the first alignment uses the motif of the piece that scores best: a short first
+                    // piece's motif may explain the others worse than theirs explain it
+                    Candidate best = a;
+                    for (int j : pieces) {
+                        if (work.get(j).score > best.score) {
+                            best = work.get(j);
                         }
-                        t.append(" stop=").append(stop).append(" m=");
-                        t.append(m == null ? "null" : m.start + "-" + m.end + "/" + m.period
-                                + String.format("/%.3f/%d", m.purity(), m.score));
-                        t.append(" acc=").append(m != null && accepted(filter, work, i, last, pieces, m));
-                        System.err.println(t);
                     }
+                    int phase = best == a ? a.phaseA : builder.bestPhase(a.model, a.start, best.motif,
+                            a.length(), CandidateBuilder.xdrop(best.period), 0);
+                    Candidate m = builder.settlePieces(from, stop, best.motif, phase, dropScale(a.period));
                     if (m != null && accepted(filter, work, i, last, pieces, m)) {
                         // the joined locus may now reach the next piece: it is chained again
                         work.subList(i + 1, last + 1).clear();
@@ -171,11 +166,6 @@ final class ArrayJoin {
     private static boolean explains(CandidateBuilder builder, Candidate u, Candidate w) {
         int phase = builder.bestPhase(w.model, w.start, u.motif, w.length(), CandidateBuilder.xdrop(u.period), 0);
         Candidate k = builder.alignPieces(new int[] {w.start}, w.end, u.motif, phase, dropScale(u.period));
-        if (TRACE) {
-            System.err.println("JOIN unit " + u.start + "-" + u.end + " vs " + w.start + "-" + w.end + " own "
-                    + String.format("%.3f", w.purity()) + " other "
-                    + (k == null ? "null" : k.end + String.format("/%.3f", k.purity())));
-        }
         return k != null && k.end >= w.end - w.period / 2 && k.purity() >= w.purity() - UNIT_LOSS;
     }
 
