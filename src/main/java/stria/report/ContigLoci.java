@@ -16,8 +16,16 @@ public final class ContigLoci {
     private int[] motif = new int[16];
     private int[] motifClass = new int[16];
     private float[] purity = new float[16];
+    // nested periodicity: the subunit's length and how many make one unit; 0 when none
+    private int[] subunitPeriod = new int[16];
+    private int[] subunits = new int[16];
 
     public void add(int s, int e, int p, int motifId, int classId, float pur) {
+        add(s, e, p, motifId, classId, pur, 0, 0);
+    }
+
+    /** A locus whose unit is made of {@code units} diverged subunits of {@code subPeriod} (0 and 0: none). */
+    public void add(int s, int e, int p, int motifId, int classId, float pur, int subPeriod, int units) {
         if (count == start.length) {
             int n = count * 2;
             start = Arrays.copyOf(start, n);
@@ -26,6 +34,8 @@ public final class ContigLoci {
             motif = Arrays.copyOf(motif, n);
             motifClass = Arrays.copyOf(motifClass, n);
             purity = Arrays.copyOf(purity, n);
+            subunitPeriod = Arrays.copyOf(subunitPeriod, n);
+            subunits = Arrays.copyOf(subunits, n);
         }
         start[count] = s;
         end[count] = e;
@@ -33,6 +43,8 @@ public final class ContigLoci {
         motif[count] = motifId;
         motifClass[count] = classId;
         purity[count] = pur;
+        subunitPeriod[count] = subPeriod;
+        subunits[count] = units;
         count++;
     }
 
@@ -53,6 +65,7 @@ public final class ContigLoci {
         });
         int[] s2 = new int[count], e2 = new int[count], p2 = new int[count], m2 = new int[count], c2 = new int[count];
         float[] u2 = new float[count];
+        int[] q2 = new int[count], k2 = new int[count];
         int n = 0;
         for (int k = 0; k < count; k++) {
             int i = order[k];
@@ -66,6 +79,8 @@ public final class ContigLoci {
             m2[n] = motif[i];
             c2[n] = motifClass[i];
             u2[n] = purity[i];
+            q2[n] = subunitPeriod[i];
+            k2[n] = subunits[i];
             n++;
         }
         start = s2;
@@ -74,6 +89,8 @@ public final class ContigLoci {
         motif = m2;
         motifClass = c2;
         purity = u2;
+        subunitPeriod = q2;
+        subunits = k2;
         count = n;
     }
 
@@ -99,5 +116,15 @@ public final class ContigLoci {
 
     public float purity(int i) {
         return purity[i];
+    }
+
+    /** Length of the subunit the unit is made of; 0 when the locus has no nested structure. */
+    public int subunitPeriod(int i) {
+        return subunitPeriod[i];
+    }
+
+    /** Subunits in one unit; 0 when the locus has no nested structure. */
+    public int subunits(int i) {
+        return subunits[i];
     }
 }

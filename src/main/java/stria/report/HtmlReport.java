@@ -292,15 +292,21 @@ public final class HtmlReport {
             LongestLoci l = LongestLoci.of(r, LongestLoci.SHOWN);
             out.println("<section><h2>The longest loci</h2>");
             out.println("<div class=\"scroll\"><table class=\"num\"><thead><tr><th>locus</th><th>length</th>"
-                    + "<th>period</th><th>motif class</th><th>purity</th></tr></thead><tbody>");
+                    + "<th>period</th><th>subunit period</th><th>subunits</th><th>motif class</th><th>purity</th>"
+                    + "</tr></thead><tbody>");
             for (LongestLoci.Row row : l.rows()) {
+                boolean nested = row.subunits() > 0;
                 out.println("<tr><td class=\"t\">" + esc(row.contig() + ":" + Fmt.count(row.start() + 1L) + "-"
                         + Fmt.count(row.end())) + "</td><td>" + Fmt.count(row.length()) + "</td><td>" + row.period()
+                        + "</td><td>" + (nested ? Integer.toString(row.subunitPeriod()) : "")
+                        + "</td><td>" + (nested ? Integer.toString(row.subunits()) : "")
                         + "</td><td class=\"t\"><code>" + esc(Fmt.ellipsize(row.motifClass(), 40)) + "</code></td><td>"
                         + String.format(java.util.Locale.ROOT, "%.3f", row.purity()) + "</td></tr>");
             }
             out.println("</tbody></table></div><p class=\"caption\">The " + l.rows().size() + " longest loci, "
-                    + "longest first; positions 1-based, inclusive.</p></section>");
+                    + "longest first; positions 1-based, inclusive. Where a locus' unit is itself made of shorter "
+                    + "diverged units (a higher-order satellite array), the subunit period is their length and "
+                    + "subunits how many make one unit; empty when there is no such structure.</p></section>");
         }
 
         private void changed() {

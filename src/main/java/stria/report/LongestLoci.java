@@ -8,8 +8,12 @@ import java.util.List;
 record LongestLoci(List<Row> rows) {
     static final int SHOWN = 20;
 
-    /** One locus: contig, start and end (0-based, end exclusive), period, motif class and purity. */
-    record Row(String contig, int start, int end, int period, String motifClass, float purity) {
+    /**
+     * One locus: contig, start and end (0-based, end exclusive), period, motif class, purity, and the nested
+     * structure of its unit (subunit period and subunits per unit; 0 and 0 when none).
+     */
+    record Row(String contig, int start, int end, int period, String motifClass, float purity, int subunitPeriod,
+               int subunits) {
         int length() {
             return end - start;
         }
@@ -40,7 +44,7 @@ record LongestLoci(List<Row> rows) {
             int c = (int) x[1], i = (int) x[2];
             ContigLoci l = r.loci().get(c);
             rows.add(new Row(r.header().contigs().get(c).name(), l.start(i), l.end(i), l.period(i),
-                    r.motifClasses().get(l.motifClass(i)), l.purity(i)));
+                    r.motifClasses().get(l.motifClass(i)), l.purity(i), l.subunitPeriod(i), l.subunits(i)));
         }
         return new LongestLoci(List.copyOf(rows));
     }

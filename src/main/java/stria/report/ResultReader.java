@@ -22,6 +22,8 @@ import stria.shard.ShardId;
  */
 public final class ResultReader {
     private static final String[] REQUIRED = {"chrom", "start", "end", "period", "motif", "motif_class", "purity"};
+    /** Read when present (results written before nested periodicity lack them): empty cells mean none. */
+    private static final String[] OPTIONAL = {"subunit_period", "subunits"};
 
     private ResultReader() {
     }
@@ -135,7 +137,15 @@ public final class ResultReader {
 
     private static int[] columns(String path, long lineNo, String headerRow) {
         String[] names = headerRow.split("\t", -1);
-        int[] col = new int[REQUIRED.length];
+        int[] col = new int[REQUIRED.length + OPTIONAL.length];
+        for (int r = 0; r < OPTIONAL.length; r++) {
+            col[REQUIRED.length + r] = -1;
+            for (int i = 0; i < names.length; i++) {
+                if (names[i].equals(OPTIONAL[r])) {
+                    col[REQUIRED.length + r] = i;
+                }
+            }
+        }
         for (int r = 0; r < REQUIRED.length; r++) {
             col[r] = -1;
             for (int i = 0; i < names.length; i++) {
@@ -186,11 +196,29 @@ public final class ResultReader {
                 classIds.put(cls, classId);
                 classNames.add(cls);
             }
-            loci.get(ci).add(s, e, p, motifId, classId, purity);
+            int subPeriod = optionalCount(f, col[REQUIRED.length]);
+            int units = optionalCount(f, col[REQUIRED.length + 1]);
+            if ((subPeriod == 0) != (units == 0)) {
+                throw new StriaException(path + " line " + lineNo + ": subunit_period and subunits must be both"
+                        + " empty or both set");
+            }
+            loci.get(ci).add(s, e, p, motifId, classId, purity, subPeriod, units);
         } catch (NumberFormatException ex) {
             throw new StriaException(path + " line " + lineNo + ": not a number where one is expected ("
                     + ex.getMessage() + ")");
         }
+    }
+
+    /** The positive count in column {@code c} of {@code f}; 0 when the column is missing or the cell empty. */
+    private static int optionalCount(String[] f, int c) {
+        if (c < 0 || c >= f.length || f[c].isEmpty()) {
+            return 0;
+        }
+        int v = Integer.parseInt(f[c]);
+        if (v < 1) {
+            throw new NumberFormatException("'" + f[c] + "' is not a positive count");
+        }
+        return v;
     }
 
     /** Per contig, the scanned spans as flattened {@code [start, end)} pairs: whole contigs, or the regions' union. */

@@ -1,26 +1,34 @@
 package stria.score;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 
 /**
  * One array, one locus: joins the pieces the competition left of one satellite array. A long array of
  * diverged units often comes out of extension in pieces: a burst of errors a few units long drives the
- * running score below the X-drop and the next seed starts a piece of its own, with the same unit.
+ * running score below the X-drop and the next seed starts a piece of its own, with the same unit; and on
+ * real arrays most pieces abut exactly, at an indel between two units (a jump of phase; 13 bases at the
+ * first break of the chr20 array in the README) longer than the aligner's band ({@link WrapAligner#HALF}
+ * letters either way) can follow.
  *
  * <p>The rule. Winners of period {@link #MIN_PERIOD} or more are taken in order of position. A piece
- * and the pieces after it form a chain while each next piece of a period within {@link #PERIOD_TOLERANCE}
- * of the first piece's starts no more than {@link #GAP_UNITS} units after the chain ends, and no locus of
- * another period longer than that lies between them. The chain's first piece is then aligned again from
- * its start against its consensus, with an X-drop wide enough to cross {@link #GAP_UNITS} units of
- * unrelated bases, and its copies vote on the consensus again. The realigned locus replaces every piece
- * (and every locus of another period between them) that it reaches the end of, when it reaches at least the
- * second piece, passes the filters, keeps at least half of the pieces' summed score, and is at most
- * {@link #PURITY_LOSS} less pure than its least pure piece (two arrays of nearly the same unit at different
- * identities, one after the other, stay apart: one consensus explains them worse than each its own). So an array is
- * split only where it is really interrupted: by more than {@link #GAP_UNITS} units of unrelated sequence,
- * or where its unit changes (a piece of another period, or of the same length but unrelated bases, which
- * stops the alignment).
+ * and the pieces after it form a chain while each next piece, of a period within {@link #PERIOD_TOLERANCE}
+ * of the first piece's, starts no more than {@link #GAP_UNITS} units after the chain ends (no locus of
+ * another period longer than that between them) and is of the same unit family as the piece before: the
+ * motif of one explains the other, aligned from its start at the phase that fits best, at most
+ * {@link #UNIT_LOSS} less purely than its own motif does (unrelated units of one length align at a purity
+ * of 0.3 to 0.5, and an inverted piece, whose motif on the + strand is the reverse complement, does not
+ * align at all; the pieces of one real array differ by 1 to 8 %). The chain is then aligned as one locus
+ * against one motif ({@link CandidateBuilder#settlePieces}): each piece from its own start at its best
+ * phase, the bases between them charged as the cheapest columns between the two phases, the copies of all
+ * pieces voting on the consensus. The joined locus replaces the pieces (and any locus of another period
+ * between them) when it reaches the last piece's end, passes the filters, keeps at least the first piece's
+ * and half of the pieces' summed score, and is at most {@link #UNIT_LOSS} less pure than the pieces
+ * together; a refused chain is tried again on its first half, quarter, ..., two pieces. A joined locus is
+ * chained again, since it may now reach the next piece. So an array is split only where it is really
+ * interrupted: by more than {@link #GAP_UNITS} units of unrelated sequence, or where its unit changes
+ * (another period, another unit of the same length, or the other strand).
  *
  * <p>A chain stays inside one component of seed reaches ({@link QuietPoints}), so the result for a stretch
  * of contig is the same however the contig is cut into windows.
@@ -33,10 +41,14 @@ final class ArrayJoin {
     /** Periods of one array's pieces differ by at most this fraction. */
     static final double PERIOD_TOLERANCE = 0.05;
 
-    /** A joined locus may be this much less pure than its least pure piece (the break itself costs some). */
+    /** Purity a locus joined across bursts may lose against its least pure piece (the break costs some). */
     static final double PURITY_LOSS = 0.03;
-
-    /** Purity a piece may lose when aligned against the motif of the piece before: one unit family. */
+    /** Copies next to a break whose letters are compared ({@link #fixedDifference}). */
+    static final int FIXED_UNITS = 20;
+    /** A letter shared by this many of the copies on one side, and another on the other, is a unit change. */
+    static final double FIXED_SHARE = 0.75;
+    static final int FIXED_COPIES = 3;
+    /** Purity a piece may lose against the motif of its neighbour, or the pieces against the joined motif. */
     static final double UNIT_LOSS = 0.10;
 
     private ArrayJoin() {
@@ -45,6 +57,106 @@ final class ArrayJoin {
     /** The winners (sorted by position) with the pieces of each array joined. */
     static List<Candidate> join(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
                                 List<Candidate> won) {
+        return joinAcrossJumps(builder, filter, quiet, joinAcrossBursts(builder, filter, quiet, won));
+    }
+
+    /**
+     * The first pass: pieces whose phase runs on across the break (a burst of errors stopped the
+     * extension), realigned from the first piece with the X-drop widened.
+     */
+    private static List<Candidate> joinAcrossBursts(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
+                                List<Candidate> won) {
+        List<Candidate> out = new ArrayList<>(won.size());
+        int i = 0;
+        while (i < won.size()) {
+            Candidate a = won.get(i);
+            int next = i + 1;
+            if (a.period >= MIN_PERIOD) {
+                int last = chainEnd(quiet, won, i);
+                if (last > i) {
+                    int c = quiet.componentAt(a.start);
+                    int stop = last + 1 < won.size() ? Math.min(quiet.end(c), won.get(last + 1).start) : quiet.end(c);
+                    Candidate m = builder.settle(a.start, a.motif, a.phaseA, stop - a.start, dropScale(a.period));
+                    int reached = m == null ? i : reached(won, i, last, m);
+                    if (reached > i) {
+                        // the locus must not end inside a piece it did not absorb
+                        if (reached < won.size() - 1 && won.get(reached + 1).start < m.end) {
+                            m = builder.settle(a.start, a.motif, a.phaseA, won.get(reached + 1).start - a.start,
+                                    dropScale(a.period));
+                            reached = m == null ? i : reached(won, i, reached, m);
+                        }
+                    }
+                    if (reached > i && acceptedAcrossBurst(filter, won, i, reached, m)) {
+                        a = m;
+                        next = reached + 1;
+                    }
+                }
+            }
+            out.add(a);
+            i = next;
+        }
+        return out;
+    }
+
+    /** Index of the last piece of the chain that starts at {@code i}; {@code i} when there is none. */
+    private static int chainEnd(QuietPoints quiet, List<Candidate> won, int i) {
+        Candidate a = won.get(i);
+        int c = quiet.componentAt(a.start);
+        int gap = GAP_UNITS * a.period;
+        int end = a.end;
+        int last = i;
+        for (int j = i + 1; j < won.size(); j++) {
+            Candidate w = won.get(j);
+            if (w.start > end + gap || quiet.componentAt(w.start) != c) {
+                break;
+            }
+            if (Math.abs(w.period - a.period) <= PERIOD_TOLERANCE * a.period) {
+                last = j;
+                end = Math.max(end, w.end);
+            } else if (w.length() > gap) {
+                break;
+            }
+        }
+        return last;
+    }
+
+    /** The last index in {@code (i, last]} whose piece ends no later than half a unit past {@code m}. */
+    private static int reached(List<Candidate> won, int i, int last, Candidate m) {
+        int r = i;
+        for (int j = i + 1; j <= last; j++) {
+            if (won.get(j).end <= m.end + m.period / 2) {
+                r = j;
+            }
+        }
+        // a joined locus must reach past at least one piece of the array's period
+        for (int j = r; j > i; j--) {
+            if (Math.abs(won.get(j).period - won.get(i).period) <= PERIOD_TOLERANCE * won.get(i).period) {
+                return r;
+            }
+        }
+        return i;
+    }
+
+    private static boolean acceptedAcrossBurst(LocusFilter filter, List<Candidate> won, int i, int reached,
+                                               Candidate m) {
+        long sum = 0;
+        double purity = 1;
+        for (int j = i; j <= reached; j++) {
+            sum += won.get(j).score;
+            if (Math.abs(won.get(j).period - won.get(i).period) <= PERIOD_TOLERANCE * won.get(i).period) {
+                purity = Math.min(purity, won.get(j).purity());
+            }
+        }
+        return filter.accepts(m) && m.score >= won.get(i).score && 2L * m.score >= sum
+                && m.purity() >= purity - PURITY_LOSS;
+    }
+
+    /**
+     * The second pass: pieces whose phase jumps at the break, each realigned from its own start and all
+     * against one motif.
+     */
+    private static List<Candidate> joinAcrossJumps(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
+                                                   List<Candidate> won) {
         List<Candidate> out = new ArrayList<>(won.size());
         // the pieces a joined locus was aligned from: a later join realigns each from its own start
         List<int[]> starts = new ArrayList<>(won.size());
@@ -60,7 +172,7 @@ final class ArrayJoin {
                 // a chain refused whole is tried again on its first half, quarter, ..., two pieces
                 boolean joined = false;
                 for (int n = chain.length; n > 1 && !joined; n = n > 2 ? Math.max(2, n / 2) : 1) {
-                    int[] pieces = java.util.Arrays.copyOf(chain, n);
+                    int[] pieces = Arrays.copyOf(chain, n);
                     int last = pieces[n - 1];
                     int c = quiet.componentAt(a.start);
                     int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start)
@@ -142,31 +254,100 @@ final class ArrayJoin {
                     break;
                 }
                 if (n == pieces.length) {
-                    pieces = java.util.Arrays.copyOf(pieces, 2 * n);
+                    pieces = Arrays.copyOf(pieces, 2 * n);
                 }
                 pieces[n++] = j;
                 u = w;
                 end = Math.max(end, w.end);
-            } else if (w.length() > gap) {
+                } else if (w.length() > gap) {
                 break;
             }
         }
-        return java.util.Arrays.copyOf(pieces, n);
+        return Arrays.copyOf(pieces, n);
     }
 
     /**
-     * Whether {@code u} and {@code w} are of one unit: the motif of one explains the other over its length
-     * at most {@link #UNIT_LOSS} less purely than its own.
+     * Whether {@code w} continues {@code u}'s array across a jump of phase: the motif of one explains the
+     * other over its length at most {@link #UNIT_LOSS} less purely than its own, and the phase where
+     * {@code w} starts differs from where {@code u}'s ends by more than the aligner's band, counted over
+     * the bases between them ({@link #jump}). A break where the phase runs on is the first pass's.
      */
     private static boolean sameUnit(CandidateBuilder builder, Candidate u, Candidate w) {
-        return explains(builder, u, w) || explains(builder, w, u);
+        Candidate k = explained(builder, u, w);
+        if (k != null && jump(u.phaseAt[u.length() - 1] + 1, k.phaseA, w.start - u.end, u.period) > WrapAligner.HALF) {
+            return !fixedDifference(builder, u, w);
+        }
+        k = explained(builder, w, u);
+        return k != null && jump(k.phaseAt[k.length() - 1] + 1, w.phaseA, w.start - k.end, w.period) > WrapAligner.HALF
+                && !fixedDifference(builder, w, u);
     }
 
-    /** Whether {@code u}'s motif explains {@code w} over its length at most {@link #UNIT_LOSS} less purely. */
-    private static boolean explains(CandidateBuilder builder, Candidate u, Candidate w) {
+    /**
+     * Whether the copies of {@code u} and {@code w} next to the break, both aligned against {@code u}'s
+     * motif, differ at some phase as two units do, not as the copies of one array: at least
+     * {@link #FIXED_COPIES} copies on each side, {@link #FIXED_SHARE} of those of {@code u} with one letter
+     * and that share of those of {@code w} with another. A unit changed in one base, as in (CA)n(GA)m, so
+     * stays two loci; the copies of one diverged array vary at the phases where two pieces' consensuses
+     * differ.
+     */
+    private static boolean fixedDifference(CandidateBuilder builder, Candidate u, Candidate w) {
+        int p = u.period;
+        int from = Math.max(u.start, u.end - FIXED_UNITS * p);
+        int xd = CandidateBuilder.xdrop(p);
+        int phaseU = builder.bestPhase(u.model, from, u.motif, u.end - from, xd, u.phaseAt[from - u.start]);
+        if (builder.alignPieces(new int[] {from}, u.end, u.motif, phaseU, 1) == null) {
+            return false;
+        }
+        int[] a = builder.votes(p);
+        int to = Math.min(w.end, w.start + FIXED_UNITS * p);
+        int phaseW = builder.bestPhase(w.model, w.start, u.motif, to - w.start, xd, 0);
+        if (builder.alignPieces(new int[] {w.start}, to, u.motif, phaseW, 1) == null) {
+            return false;
+        }
+        int[] b = builder.votes(p);
+        for (int ph = 0; ph < p; ph++) {
+            int o = VoteTally.SLOTS * ph;
+            int x = majority(a, o);
+            int y = majority(b, o);
+            if (x != y && fixed(a, o, x) && fixed(b, o, y)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static int majority(int[] v, int o) {
+        int best = 0;
+        for (int c = 1; c < 4; c++) {
+            if (v[o + c] > v[o + best]) {
+                best = c;
+            }
+        }
+        return best;
+    }
+
+    /** Whether letter {@code x} holds {@link #FIXED_SHARE} of at least {@link #FIXED_COPIES} copies at the phase. */
+    private static boolean fixed(int[] v, int o, int x) {
+        int n = v[o] + v[o + 1] + v[o + 2] + v[o + 3] + v[o + VoteTally.DELETED];
+        return n >= FIXED_COPIES && v[o + x] >= FIXED_SHARE * n;
+    }
+
+    /**
+     * Indels a path must take between a base at phase {@code expected} (the one after the last aligned)
+     * and one at {@code phase}, {@code gap} bases further: the template advance over the gap is taken
+     * nearest to {@code gap}, back by less than a unit at most.
+     */
+    static int jump(int expected, int phase, int gap, int p) {
+        int d = Math.floorMod(phase - expected, p);
+        int advance = d + p * Math.max(-1, Math.round((gap - d) / (float) p));
+        return Math.abs(advance - gap);
+    }
+
+    /** {@code w} aligned against {@code u}'s motif, when that is at most {@link #UNIT_LOSS} less pure; else null. */
+    private static Candidate explained(CandidateBuilder builder, Candidate u, Candidate w) {
         int phase = builder.bestPhase(w.model, w.start, u.motif, w.length(), CandidateBuilder.xdrop(u.period), 0);
         Candidate k = builder.alignPieces(new int[] {w.start}, w.end, u.motif, phase, dropScale(u.period));
-        return k != null && k.end >= w.end - w.period / 2 && k.purity() >= w.purity() - UNIT_LOSS;
+        return k != null && k.end >= w.end - w.period / 2 && k.purity() >= w.purity() - UNIT_LOSS ? k : null;
     }
 
     private static boolean accepted(LocusFilter filter, List<Candidate> won, int i, int last, int[] pieces,

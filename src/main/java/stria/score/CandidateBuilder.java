@@ -202,6 +202,11 @@ final class CandidateBuilder {
         return k;
     }
 
+    /** A copy of the votes the last alignment left in the tally, {@link VoteTally#SLOTS} per phase of {@code p}. */
+    int[] votes(int p) {
+        return Arrays.copyOf(tally.counts(), VoteTally.SLOTS * p);
+    }
+
     /** Phases kept from the first, short trial of every phase for the longer second one. */
     static final int PHASE_TRIALS = 4;
 
@@ -216,7 +221,7 @@ final class CandidateBuilder {
         int n = Math.min(cap, p + p / 2);
         int[] top = new int[PHASE_TRIALS];
         int[] topScore = new int[PHASE_TRIALS];
-        java.util.Arrays.fill(topScore, Integer.MIN_VALUE);
+        Arrays.fill(topScore, Integer.MIN_VALUE);
         for (int t = 0; t < p; t++) {
             // from the expected phase outwards, alternately ahead and behind
             int phase = Math.floorMod(expected + ((t & 1) == 0 ? t / 2 : -(t + 1) / 2), p);

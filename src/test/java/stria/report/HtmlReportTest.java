@@ -114,6 +114,59 @@ class HtmlReportTest {
         assertThat(render(imperfect)).contains("Locus length against purity").doesNotContain("Loci by length");
     }
 
+    @Test
+    void theLongestLociShowBothPeriodsOfHigherOrderArrays() throws Exception {
+        var contigs = List.of(new stria.io.ContigInfo("chrA", 2_000_000));
+        String block = ResultFixtures.randomMotif(new java.util.Random(3), 684);
+        String plain = ResultFixtures.randomMotif(new java.util.Random(4), 171);
+        // the scan's TSV with its two nested-structure columns: a block of 4 units of 171, a plain array,
+        // and a short repeat
+        List<String> rows = List.of(
+                ResultFixtures.row("chrA", 1_000, 1_040, "AC", 0.95) + "\t\t",
+                ResultFixtures.row("chrA", 100_000, 400_000, block, 0.97) + "\t171\t4",
+                ResultFixtures.row("chrA", 500_000, 560_000, plain, 0.82) + "\t\t");
+        List<String> lines = new java.util.ArrayList<>(ResultFixtures.header(contigs, null, List.of()).lines());
+        lines.add(ResultFixtures.TSV_HEADER + "\tsubunit_period\tsubunits");
+        lines.addAll(rows);
+        Path nested = java.nio.file.Files.write(dir.resolve("nested.tsv"), lines, StandardCharsets.UTF_8);
+        List<List<String>> table = longestTable(render(nested));
+        assertThat(table.get(0)).containsExactly("locus", "length", "period", "subunit period", "subunits",
+                "motif class", "purity");
+        // longest first; the cells are the TSV's columns (positions 1-based)
+        assertThat(table.get(1).subList(0, 5)).containsExactly("chrA:100,001-400,000", "300,000", "684", "171", "4");
+        assertThat(table.get(2).subList(0, 5)).containsExactly("chrA:500,001-560,000", "60,000", "171", "", "");
+        assertThat(table.get(3).subList(0, 5)).containsExactly("chrA:1,001-1,040", "40", "2", "", "");
+
+        // results written before the two columns existed read as loci without nested structure
+        Path old = ResultFixtures.write(dir.resolve("old.tsv"), ResultFixtures.header(contigs, null, List.of()),
+                List.of(ResultFixtures.row("chrA", 100_000, 400_000, block, 0.97)));
+        assertThat(longestTable(render(old)).get(1).subList(2, 5)).containsExactly("684", "", "");
+
+        // one of the pair alone is not a nested structure: refused with the line
+        lines.set(lines.size() - 1, ResultFixtures.row("chrA", 500_000, 560_000, plain, 0.82) + "\t171\t");
+        Path half = java.nio.file.Files.write(dir.resolve("half.tsv"), lines, StandardCharsets.UTF_8);
+        org.assertj.core.api.Assertions.assertThatThrownBy(() -> render(half))
+                .isInstanceOf(stria.StriaException.class).hasMessageContaining("half.tsv line")
+                .hasMessageContaining("subunit_period and subunits");
+    }
+
+    /** The cells of the table of the longest loci, header row first, tags stripped. */
+    private static List<List<String>> longestTable(String html) {
+        int from = html.indexOf("<h2>The longest loci</h2>");
+        String t = html.substring(from, html.indexOf("</table>", from));
+        List<List<String>> out = new java.util.ArrayList<>();
+        Matcher row = Pattern.compile("<tr>(.*?)</tr>").matcher(t);
+        while (row.find()) {
+            List<String> cells = new java.util.ArrayList<>();
+            Matcher cell = Pattern.compile("<t[hd][^>]*>(.*?)</t[hd]>").matcher(row.group(1));
+            while (cell.find()) {
+                cells.add(cell.group(1).replaceAll("<[^>]+>", ""));
+            }
+            out.add(cells);
+        }
+        return out;
+    }
+
     private static String render(Path tsv) {
         ResultSet r = ResultReader.read(List.of(tsv.toString()));
         ByteArrayOutputStream bytes = new ByteArrayOutputStream();
