@@ -73,6 +73,66 @@ class SatelliteArrayCallTest {
     }
 
     @Test
+    void aJumpOfPhaseBetweenTwoCopiesIsCrossed() {
+        Random r = new Random(29);
+        String unit = random(UNIT, r);
+        // one copy lacks 40 bases: a jump of phase far wider than the aligner's band
+        String left = array(unit, 60, 0.12, r);
+        String right = mutate(unit.substring(40), 0.12, r) + array(unit, 60, 0.12, r);
+        String arr = left + right;
+        byte[] seq = LocusCallerTest.flanked(arr, 2000, 7);
+        // the premise: one alignment with the unit, even with the widened X-drop, stops at the jump
+        byte[] motif = new byte[UNIT];
+        for (int i = 0; i < UNIT; i++) {
+            motif[i] = stria.io.Bases.code((byte) unit.charAt(i));
+        }
+        WrapAligner one = new WrapAligner();
+        one.extend(ScoringModel.uniform(), seq, 2000, 1, motif, UNIT, 0, arr.length(),
+                CandidateBuilder.xdrop(UNIT) * ArrayJoin.dropScale(UNIT));
+        assertThat(one.bestI()).isLessThan(left.length() + UNIT);
+
+        List<Locus> p = pieces(LocusCallerTest.call(seq, settings(2000)), 2000, 2000 + arr.length());
+        assertThat(p).hasSize(1);
+        assertThat(p.get(0).length()).isGreaterThanOrEqualTo((int) (0.9 * arr.length()));
+        assertThat(Math.abs(p.get(0).period() - UNIT)).isLessThanOrEqualTo(UNIT / 20);
+    }
+
+    @Test
+    void aUnitChangedInOneBaseAfterAJumpStaysTwoLoci() {
+        Random r = new Random(31);
+        String unit = random(UNIT, r);
+        char c = unit.charAt(90);
+        String changed = unit.substring(0, 90) + "ACGT".charAt(("ACGT".indexOf(c) + 2) % 4) + unit.substring(91);
+        // the first array ends inside a copy, the second starts a copy of its own unit: like (CA)n(GA)m
+        String left = array(unit, 40, 0.04, r) + mutate(unit.substring(0, 80), 0.04, r);
+        String right = array(changed, 40, 0.04, r);
+        byte[] seq = LocusCallerTest.flanked(left + right, 2000, 8);
+        List<Locus> p = pieces(LocusCallerTest.call(seq, settings(2000)), 2000, 2000 + left.length() + right.length());
+        assertThat(p).hasSize(2);
+        assertThat(Math.abs(p.get(0).end() - (2000 + left.length()))).isLessThan(UNIT);
+    }
+
+    @Test
+    void anInvertedHalfStaysTwoLoci() {
+        Random r = new Random(37);
+        String unit = random(UNIT, r);
+        String left = array(unit, 60, 0.12, r);
+        String right = reverseComplement(array(unit, 60, 0.12, r));
+        byte[] seq = LocusCallerTest.flanked(left + right, 2000, 9);
+        List<Locus> p = pieces(LocusCallerTest.call(seq, settings(2000)), 2000, 2000 + left.length() + right.length());
+        assertThat(p).hasSize(2);
+        assertThat(Math.abs(p.get(0).end() - (2000 + left.length()))).isLessThan(UNIT);
+    }
+
+    private static String reverseComplement(String s) {
+        StringBuilder sb = new StringBuilder(s.length());
+        for (int i = s.length() - 1; i >= 0; i--) {
+            sb.append("TGCA".charAt("ACGT".indexOf(s.charAt(i))));
+        }
+        return sb.toString();
+    }
+
+    @Test
     void anInterruptionOfUnrelatedSequenceSplitsTheArray() {
         Random r = new Random(23);
         String unit = random(UNIT, r);
