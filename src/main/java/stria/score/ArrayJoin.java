@@ -18,8 +18,8 @@ import java.util.List;
  * before, are aligned again from the first piece's start with the X-drop widened to cross
  * {@link #GAP_UNITS} units; the result replaces the pieces it reaches the end of when it passes the
  * filters, keeps half their summed score and is at most {@link #PURITY_LOSS} less pure than its least pure
- * piece. <em>Across jumps</em> (the phase jumps at the break by more than the band): the pieces form a
- * chain while each next piece, of a period within {@link #PERIOD_TOLERANCE}, starts no more than
+ * piece. <em>Piece by piece</em> (what is left, in particular where the phase jumps at the break by
+ * more than the band): the pieces form a chain while each next piece, of a period within {@link #PERIOD_TOLERANCE}, starts no more than
  * {@link #GAP_UNITS} units after the chain ends (no locus of another period longer than that between
  * them) and is of the same unit as the piece before: the motif of one explains the other, aligned from
  * its start at the phase that fits best, at most {@link #UNIT_LOSS} less purely than its own (unrelated
@@ -64,7 +64,7 @@ final class ArrayJoin {
     /** The winners (sorted by position) with the pieces of each array joined. */
     static List<Candidate> join(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
                                 List<Candidate> won) {
-        return joinAcrossJumps(builder, filter, quiet, joinAcrossBursts(builder, filter, quiet, won));
+        return joinPieceByPiece(builder, filter, quiet, joinAcrossBursts(builder, filter, quiet, won));
     }
 
     /**
@@ -159,10 +159,10 @@ final class ArrayJoin {
     }
 
     /**
-     * The second pass: pieces whose phase jumps at the break, each realigned from its own start and all
-     * against one motif.
+     * The second pass: pieces each realigned from its own start, all against one motif, so that a jump of
+     * phase at a break costs only its indels.
      */
-    private static List<Candidate> joinAcrossJumps(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
+    private static List<Candidate> joinPieceByPiece(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
                                                    List<Candidate> won) {
         List<Candidate> out = new ArrayList<>(won.size());
         // the pieces a joined locus was aligned from: a later join realigns each from its own start
@@ -274,19 +274,15 @@ final class ArrayJoin {
     }
 
     /**
-     * Whether {@code w} continues {@code u}'s array across a jump of phase: the motif of one explains the
-     * other over its length at most {@link #UNIT_LOSS} less purely than its own, and the phase where
-     * {@code w} starts differs from where {@code u}'s ends by more than the aligner's band, counted over
-     * the bases between them ({@link #jump}). A break where the phase runs on is the first pass's.
+     * Whether {@code w} continues {@code u}'s array: the motif of one explains the other over its length at
+     * most {@link #UNIT_LOSS} less purely than its own, and the copies beside the break show no
+     * {@link #fixedDifference}.
      */
     private static boolean sameUnit(CandidateBuilder builder, Candidate u, Candidate w) {
-        Candidate k = explained(builder, u, w);
-        if (k != null && jump(u.phaseAt[u.length() - 1] + 1, k.phaseA, w.start - u.end, u.period) > WrapAligner.HALF) {
+        if (explained(builder, u, w) != null) {
             return !fixedDifference(builder, u, w);
         }
-        k = explained(builder, w, u);
-        return k != null && jump(k.phaseAt[k.length() - 1] + 1, w.phaseA, w.start - k.end, w.period) > WrapAligner.HALF
-                && !fixedDifference(builder, w, u);
+        return explained(builder, w, u) != null && !fixedDifference(builder, w, u);
     }
 
     /**
@@ -337,17 +333,6 @@ final class ArrayJoin {
     private static boolean fixed(int[] v, int o, int x) {
         int n = v[o] + v[o + 1] + v[o + 2] + v[o + 3] + v[o + VoteTally.DELETED];
         return n >= FIXED_COPIES && v[o + x] >= FIXED_SHARE * n;
-    }
-
-    /**
-     * Indels a path must take between a base at phase {@code expected} (the one after the last aligned)
-     * and one at {@code phase}, {@code gap} bases further: the template advance over the gap is taken
-     * nearest to {@code gap}, back by less than a unit at most.
-     */
-    static int jump(int expected, int phase, int gap, int p) {
-        int d = Math.floorMod(phase - expected, p);
-        int advance = d + p * Math.max(-1, Math.round((gap - d) / (float) p));
-        return Math.abs(advance - gap);
     }
 
     /** {@code w} aligned against {@code u}'s motif, when that is at most {@link #UNIT_LOSS} less pure; else null. */
