@@ -262,7 +262,7 @@ public final class LocusCaller {
             return null;
         }
         // the stretch votes on its own consensus: the loser's was shaped by the copies it lost
-        Candidate r = builder.settle(g0, k.motif, k.phaseAt[g0 - k.start], g1 - g0);
+        Candidate r = builder.settle(g0, k.motif, k.phases.at(g0 - k.start), g1 - g0);
         return r != null && filter.accepts(r) ? r : null;
     }
 }
