@@ -34,15 +34,22 @@ public final class SharedComponents {
      * else as that call solved it (waiting for it when needed).
      */
     List<Locus> solve(int start, int end, Solver solver) {
-        CompletableFuture<List<Locus>> f;
+        CompletableFuture<List<Locus>> met = null;
+        CompletableFuture<List<Locus>> f = new CompletableFuture<>();
         synchronized (entries) {
             for (Entry e : entries) {
                 if (e.start == start && e.end == end) {
-                    return join(e.loci);
+                    met = e.loci;
+                    break;
                 }
             }
-            f = new CompletableFuture<>();
-            entries.add(new Entry(start, end, f));
+            if (met == null) {
+                entries.add(new Entry(start, end, f));
+            }
+        }
+        // waited for outside the lock: the call solving it may need the lock for its next component
+        if (met != null) {
+            return join(met);
         }
         try {
             List<Locus> loci = List.copyOf(solver.solve());
