@@ -34,6 +34,16 @@ class ConsensusProperties {
         check(1048733739L, 2, 8, 0);
     }
 
+    /**
+     * The true unit is CCCCACA; the first vote shaped ACCCACA from a flank A one base before the repeat, and
+     * realigning from that base with the majority motif scored lower, so the motif was not the majority of
+     * its own alignment (phase 0: C 8 times, A twice).
+     */
+    @Example
+    void aLeadingFlankBaseDoesNotKeepAMinorityMotif() {
+        check(9186364920792210195L, 7, 24, 10);
+    }
+
     private static void check(long seed, int period, int copies, int errorsPercent) {
         Random r = new Random(seed);
         char[] unit = new char[period];
