@@ -93,37 +93,12 @@ final class CandidateBuilder {
                 break;
             }
             Candidate r = align(k.start, next.motif(), next.phase(), cap);
-            Candidate t = trimmed(k.start, next.motif(), next.phase(), cap);
-            if (t != null && (r == null || t.score > r.score)) {
-                r = t;
-            } else if (t != null && r.score > k.score) {
-                // the tally must hold the votes of the alignment kept: the trimmed one filled it last
-                r = align(k.start, next.motif(), next.phase(), cap);
-            }
             if (r == null || r.score <= k.score) {
                 break;
             }
             k = r;
         }
         return k;
-    }
-
-    /**
-     * The alignment against {@code motif} from the first base at or after {@code a}, less than a copy on,
-     * that agrees with it (read from phase {@code phaseA} at {@code a}); null when {@code a} agrees already
-     * (the untrimmed alignment is that one) or no base of the first copy does. A base the provisional motif
-     * took in from a flank would otherwise keep the fixed left end and the new motif from scoring above the
-     * old one, and the motif would stay what the minority of its own copies say.
-     */
-    private Candidate trimmed(int a, byte[] motif, int phaseA, int cap) {
-        int p = motif.length;
-        for (int i = 0; i < p && i < cap && a + i < seq.length; i++) {
-            int ph = (phaseA + i) % p;
-            if (Bases.code(seq[a + i]) == motif[ph]) {
-                return i == 0 ? null : align(a + i, motif, ph, cap - i);
-            }
-        }
-        return null;
     }
 
     /**

@@ -35,9 +35,9 @@ class ConsensusProperties {
     }
 
     /**
-     * The true unit is CCCCACA; the first vote shaped ACCCACA from a flank A one base before the repeat, and
-     * realigning from that base with the majority motif scored lower, so the motif was not the majority of
-     * its own alignment (phase 0: C 8 times, A twice).
+     * The left side of a compound split (true unit CCCCACA, from a flank A one base early): its motif was
+     * counted on the whole candidate's alignment, whose gaps the side realigned alone does not have, so it
+     * said ACCCACA where the side's own phase 0 holds C 8 times and A twice.
      */
     @Example
     void aLeadingFlankBaseDoesNotKeepAMinorityMotif() {
