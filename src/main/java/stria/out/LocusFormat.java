@@ -9,7 +9,7 @@ import stria.score.Locus;
  */
 public final class LocusFormat {
     public static final String TSV_HEADER = "chrom\tstart\tend\tperiod\tmotif\tmotif_class\tcopies\tlength\tpurity"
-            + "\tmismatches\tinsertions\tdeletions\tscore\tevalue\tentropy";
+            + "\tmismatches\tinsertions\tdeletions\tscore\tevalue\tentropy\tsubunit_period\tsubunits";
 
     private LocusFormat() {
     }
@@ -35,6 +35,12 @@ public final class LocusFormat {
         evalue(sb, l.evalue());
         sb.append('\t');
         fixed(sb, l.entropy(), 3);
+        sb.append('\t');
+        if (l.subunits() > 0) {
+            sb.append(l.subunitPeriod()).append('\t').append(l.subunits());
+        } else {
+            sb.append('\t');
+        }
         sb.append('\n');
     }
 

@@ -24,9 +24,18 @@ final class Candidate {
     final int insertions;
     final int deletions;
     final int[] phaseAt;
+    /** Length of the shorter diverged unit the motif is made of, and how many make one motif; 0 when none. */
+    final int subunitPeriod;
+    final int subunits;
 
     Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, VoteTally.PathCounts counts,
               int[] phaseAt) {
+        this(start, motif, phaseA, score, model, counts.matches(), counts.mismatches(), counts.insertions(),
+                counts.deletions(), phaseAt, 0, 0);
+    }
+
+    private Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, int matches,
+                      int mismatches, int insertions, int deletions, int[] phaseAt, int subunitPeriod, int subunits) {
         this.start = start;
         this.end = start + phaseAt.length;
         this.period = motif.length;
@@ -34,11 +43,19 @@ final class Candidate {
         this.phaseA = phaseA;
         this.score = score;
         this.model = model;
-        this.matches = counts.matches();
-        this.mismatches = counts.mismatches();
-        this.insertions = counts.insertions();
-        this.deletions = counts.deletions();
+        this.matches = matches;
+        this.mismatches = mismatches;
+        this.insertions = insertions;
+        this.deletions = deletions;
         this.phaseAt = phaseAt;
+        this.subunitPeriod = subunitPeriod;
+        this.subunits = subunits;
+    }
+
+    /** The same candidate with its motif made of {@code subunits} diverged units of {@code subunitPeriod}. */
+    Candidate withSubunits(int subunitPeriod, int subunits) {
+        return new Candidate(start, motif, phaseA, score, model, matches, mismatches, insertions, deletions, phaseAt,
+                subunitPeriod, subunits);
     }
 
     int length() {
@@ -60,7 +77,7 @@ final class Candidate {
         int len = end - start;
         return new Locus(start, end, period, motifText, MotifClass.of(motifText), len / (double) period,
                 purity(), mismatches, insertions, deletions, ScoringModel.bits(score),
-                calibration.evalue(model.gcClass(), score), entropy(seq, start, end));
+                calibration.evalue(model.gcClass(), score), entropy(seq, start, end), subunitPeriod, subunits);
     }
 
     static double entropy(byte[] seq, int start, int end) {

@@ -85,14 +85,23 @@ final class CandidateBuilder {
      * its consensus, each kept only when realigning with it raises the score; null when nothing aligns.
      */
     Candidate settle(int a, byte[] motif, int phaseA, int cap) {
-        Candidate k = align(a, motif, phaseA, cap);
+        return settle(a, motif, phaseA, cap, 1);
+    }
+
+    /**
+     * As {@link #settle(int, byte[], int, int)}, with the X-drop multiplied by {@code dropScale}: an
+     * extension that must run through a burst of errors, as across the break between two pieces of one
+     * satellite array ({@link ArrayJoin}).
+     */
+    Candidate settle(int a, byte[] motif, int phaseA, int cap, int dropScale) {
+        Candidate k = align(a, motif, phaseA, cap, dropScale);
         for (int round = 0; k != null && round < VOTE_ROUNDS; round++) {
             // the tally holds the votes of k's alignment: align filled it last
             Consensus next = Consensus.of(tally.counts(), k.motif, k.phaseA);
             if (next == null || Arrays.equals(next.motif(), k.motif)) {
                 break;
             }
-            Candidate r = align(k.start, next.motif(), next.phase(), cap);
+            Candidate r = align(k.start, next.motif(), next.phase(), cap, dropScale);
             if (r == null || r.score <= k.score) {
                 break;
             }
@@ -108,9 +117,13 @@ final class CandidateBuilder {
      * {@code a}. Null when not one base aligns.
      */
     Candidate align(int a, byte[] motif, int phaseA, int cap) {
+        return align(a, motif, phaseA, cap, 1);
+    }
+
+    private Candidate align(int a, byte[] motif, int phaseA, int cap, int dropScale) {
         int p = motif.length;
         ScoringModel model = background.at(a);
-        right.extend(model, seq, a, 1, motif, p, phaseA, cap, xdrop(p));
+        right.extend(model, seq, a, 1, motif, p, phaseA, cap, xdrop(p) * dropScale);
         int len = right.bestI();
         if (len == 0) {
             return null;

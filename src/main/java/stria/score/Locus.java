@@ -18,10 +18,19 @@ package stria.score;
  * @param evalue      loci expected per Mb of random i.i.d. sequence of the same composition with at least this
  *                    score ({@link Calibration})
  * @param entropy     Shannon entropy (bits, 0..2) of the base composition of the locus
+ * @param subunitPeriod length of the shorter diverged unit the motif is made of (0: no nested structure)
+ * @param subunits    how many such units make one motif (0: no nested structure)
  */
 public record Locus(int start, int end, int period, String motif, String motifClass, double copies,
                     double purity, int mismatches, int insertions, int deletions, double score, double evalue,
-                    double entropy) {
+                    double entropy, int subunitPeriod, int subunits) {
+
+    /** A locus without nested structure. */
+    public Locus(int start, int end, int period, String motif, String motifClass, double copies, double purity,
+                 int mismatches, int insertions, int deletions, double score, double evalue, double entropy) {
+        this(start, end, period, motif, motifClass, copies, purity, mismatches, insertions, deletions, score, evalue,
+                entropy, 0, 0);
+    }
 
     public int length() {
         return end - start;
@@ -30,6 +39,6 @@ public record Locus(int start, int end, int period, String motif, String motifCl
     /** The same locus {@code d} bases further along. */
     public Locus shifted(int d) {
         return new Locus(start + d, end + d, period, motif, motifClass, copies, purity, mismatches, insertions,
-                deletions, score, evalue, entropy);
+                deletions, score, evalue, entropy, subunitPeriod, subunits);
     }
 }

@@ -202,10 +202,13 @@ public final class LocusCaller {
         CandidateBuilder builder = new CandidateBuilder(seq, background, ws);
         List<Candidate> cands = candidates(builder, seeds, quiet, q1, q2);
         List<Candidate> won = Competition.resolve(cands, (k, g0, g1) -> trimmed(builder, k, g0, g1));
+        won = ArrayJoin.join(builder, filter, quiet, won);
         List<Locus> out = new ArrayList<>();
-        for (Candidate k : won) {
+        for (int i = 0; i < won.size(); i++) {
+            Candidate k = won.get(i);
             if (k.start >= from && k.start < to) {
-                out.add(k.toLocus(seq, filter.calibration()));
+                int stop = i + 1 < won.size() ? won.get(i + 1).start : quiet.end(quiet.componentAt(k.start));
+                out.add(NestedUnits.of(builder, filter, settings.maxPeriod(), k, stop - k.start).toLocus(seq, filter.calibration()));
             }
         }
         return out;

@@ -109,9 +109,12 @@ class LocusFormatTest {
         Locus l = new Locus(10, 40, 2, "CA", "AC", 15, 1.0, 0, 0, 0, 51.8, 2.13e-7, 1.0);
         StringBuilder sb = new StringBuilder();
         LocusFormat.tsv(sb, "c", l);
-        String[] f = sb.toString().strip().split("\t");
+        // empty trailing columns (no nested structure) are kept
+        String[] f = sb.toString().replace("\n", "").split("\t", -1);
         String[] names = LocusFormat.TSV_HEADER.split("\t");
         assertThat(f).hasSameSizeAs(names);
+        assertThat(f[f.length - 2]).isEmpty();
+        assertThat(f[f.length - 1]).isEmpty();
         int score = java.util.Arrays.asList(names).indexOf("score");
         assertThat(names[score + 1]).isEqualTo("evalue");
         assertThat(f[score]).isEqualTo("51.8");
@@ -120,5 +123,17 @@ class LocusFormatTest {
         sb.setLength(0);
         LocusFormat.bed(sb, "c", l);
         assertThat(sb.toString().split("\t")[4]).isEqualTo("1000");
+    }
+
+    @Test
+    void nestedUnitsFillTheirTwoColumns() {
+        Locus l = new Locus(0, 6840, 684, "A".repeat(684), "A".repeat(684), 10, 0.98, 0, 0, 0, 9000.0, 0, 1.9,
+                171, 4);
+        StringBuilder sb = new StringBuilder();
+        LocusFormat.tsv(sb, "c", l);
+        String[] f = sb.toString().replace("\n", "").split("\t", -1);
+        java.util.List<String> names = java.util.Arrays.asList(LocusFormat.TSV_HEADER.split("\t"));
+        assertThat(f[names.indexOf("subunit_period")]).isEqualTo("171");
+        assertThat(f[names.indexOf("subunits")]).isEqualTo("4");
     }
 }

@@ -1,0 +1,124 @@
+package stria.score;
+
+import stria.io.Bases;
+
+/**
+ * Nested periodicity: a locus whose unit is itself made of shorter diverged units, as in higher-order
+ * satellite arrays, where a block of k diverged units repeats with copies far more alike than the units.
+ *
+ * <p>The measure is {@link #agreement}: how often a base equals the base {@code d} further on, over short
+ * windows spread along the locus, each window at its best offset within a few bases of {@code d} (copies
+ * differ by small insertions and deletions too). Random sequence agrees in about a quarter to two fifths of
+ * the bases; copies at identity x in about x.
+ *
+ * <p>The rule, for a locus of period P of {@link #MIN_PERIOD} or more:
+ * <ul>
+ *   <li><em>Block above the unit.</em> For k = 2..{@link #MAX_UNITS} with k P within the period limit, the
+ *       smallest k whose distance k P disagrees in at most half as many bases as P ({@link #CLEARER}) and
+ *       agrees in at least {@link #BLOCK_AGREEMENT} of them: the copies of the block explain the array
+ *       clearly better than the units. The locus is realigned with the block as its unit; it keeps the block
+ *       when that alignment covers the locus as well and is purer, with P as the subunit and k subunits.
+ *   <li><em>Units inside the motif.</em> Otherwise, the largest k = 2..{@link #MAX_UNITS} such that the
+ *       distance q = P / k (at least {@link #MIN_SUBUNIT}) agrees in at least {@link #UNIT_AGREEMENT} of the
+ *       bases, and P disagrees in at most half as many: q is the subunit, k the subunits.
+ * </ul>
+ * Loci without either get no nested structure. A block longer than the period limit is not looked for:
+ * the array then comes out at the unit level.
+ */
+final class NestedUnits {
+    static final int MIN_PERIOD = 40;
+    static final int MIN_SUBUNIT = 20;
+    static final int MAX_UNITS = 16;
+    static final double CLEARER = 0.5;
+    static final double BLOCK_AGREEMENT = 0.8;
+    static final double UNIT_AGREEMENT = 0.6;
+    private static final int WINDOW = 32;
+    private static final int MAX_WINDOWS = 600;
+
+    private NestedUnits() {
+    }
+
+    /** {@code k} with its nested structure, or realigned at the block level, or {@code k} itself. */
+    static Candidate of(CandidateBuilder builder, LocusFilter filter, int maxPeriod, Candidate k, int cap) {
+        int p = k.period;
+        if (p < MIN_PERIOD) {
+            return k;
+        }
+        byte[] seq = builder.seq();
+        double unit = agreement(seq, k.start, k.end, p);
+        for (int n = 2; n <= MAX_UNITS && (long) n * p <= maxPeriod && 3L * n * p <= k.length(); n++) {
+            double block = agreement(seq, k.start, k.end, n * p);
+            if (block >= BLOCK_AGREEMENT && 1 - block <= CLEARER * (1 - unit)) {
+                Candidate b = asBlock(builder, filter, k, n * p, cap);
+                if (b != null) {
+                    return b.withSubunits(p, n);
+                }
+                break;
+            }
+        }
+        for (int n = MAX_UNITS; n >= 2; n--) {
+            int q = Math.round(p / (float) n);
+            if (q < MIN_SUBUNIT) {
+                continue;
+            }
+            double sub = agreement(seq, k.start, k.end, q);
+            if (sub >= UNIT_AGREEMENT && 1 - unit <= CLEARER * (1 - sub)) {
+                return k.withSubunits(q, n);
+            }
+        }
+        return k;
+    }
+
+    /** {@code k} realigned from its start with its first block as the unit, if that is as long and purer. */
+    private static Candidate asBlock(CandidateBuilder builder, LocusFilter filter, Candidate k, int block, int cap) {
+        byte[] seq = builder.seq();
+        byte[] motif = new byte[block];
+        for (int i = 0; i < block; i++) {
+            int c = Bases.code(seq[k.start + i]);
+            if (c < 0 || c > 3) {
+                return null;
+            }
+            motif[i] = (byte) c;
+        }
+        Candidate b = builder.settle(k.start, motif, 0, cap, ArrayJoin.dropScale(block));
+        if (b == null || b.end < k.end - k.period || b.purity() <= k.purity() || !filter.accepts(b)) {
+            return null;
+        }
+        return b;
+    }
+
+    /**
+     * Fraction of bases equal to the base {@code d} further on, over windows of {@link #WINDOW} bases
+     * spread evenly over {@code [start, end - d)} (at most {@link #MAX_WINDOWS}), each at its best offset
+     * in {@code d} plus or minus 2 + d / 50.
+     */
+    static double agreement(byte[] seq, int start, int end, int d) {
+        int slack = 2 + d / 50;
+        int span = end - start - d - slack - WINDOW;
+        if (span <= 0) {
+            return 0;
+        }
+        int windows = Math.min(MAX_WINDOWS, Math.max(1, span / WINDOW));
+        long total = 0;
+        for (int w = 0; w < windows; w++) {
+            int x = start + (int) ((long) span * w / windows);
+            int best = 0;
+            for (int s = -slack; s <= slack; s++) {
+                int y = x + d + s;
+                if (y < start) {
+                    continue;
+                }
+                int same = 0;
+                for (int t = 0; t < WINDOW; t++) {
+                    byte u = Bases.code(seq[x + t]);
+                    if (u >= 0 && u <= 3 && u == Bases.code(seq[y + t])) {
+                        same++;
+                    }
+                }
+                best = Math.max(best, same);
+            }
+            total += best;
+        }
+        return total / (double) (windows * WINDOW);
+    }
+}
