@@ -171,7 +171,12 @@ class ComparisonProperties {
         mirrors(seed, edits);
     }
 
-    /** A locus of a2 placed SAME on B and UNPLACED (stretch-not-kept) on B reverse-complemented. */
+    /**
+     * A locus of a2 placed SAME on B and UNPLACED (stretch-not-kept) on B reverse-complemented (property
+     * seed -6958987343744783382): B holds a second copy of some of the locus' anchor words 5 kb away, and
+     * on the - strand the second occurrence of one, no longer unique, replaced the stretch kept between the
+     * unique anchors by one starting at a unique word beside the copy.
+     */
     @Example
     void aStretchIsKeptOnBothStrandsOfB() {
         mirrors(19224, 6);
