@@ -35,9 +35,10 @@ class ConsensusProperties {
     }
 
     /**
-     * The left side of a compound split (true unit CCCCACA, from a flank A one base early): its motif was
-     * counted on the whole candidate's alignment, whose gaps the side realigned alone does not have, so it
-     * said ACCCACA where the side's own phase 0 holds C 8 times and A twice.
+     * One (CCCACAC)n array, starting at a flank A one base early, split in two by {@link CompoundSplit}
+     * (the whole candidate's alignment took a gap, so its phases shift part way): the left side's motif was
+     * counted on the whole candidate's phases, which the side realigned alone does not have, and was never
+     * voted on again, so it said ACCCACA where the side's own phase 0 holds C 8 times and A twice.
      */
     @Example
     void aLeadingFlankBaseDoesNotKeepAMinorityMotif() {
