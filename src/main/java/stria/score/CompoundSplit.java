@@ -8,7 +8,8 @@ import stria.io.Bases;
  * through such a change (two letters of three still match), so the split is found afterwards. The split
  * point is where separate majority consensuses for the two sides agree with the most bases; it is taken
  * when that gains at least {@link #SPLIT_GAIN} of the locus' bases (and {@link #SPLIT_MIN_GAIN} bases)
- * over one consensus, each side keeps two copies and both sides, realigned, pass the filter.
+ * over one consensus, each side keeps two copies and both sides, realigned and voted on again on their own
+ * alignments ({@link CandidateBuilder#settle}), pass the filter.
  */
 final class CompoundSplit {
     /** Share of a locus' bases a split must gain, and the fewest bases, so chance variation never splits. */
@@ -63,8 +64,10 @@ final class CompoundSplit {
             return;
         }
         int x = k.start + at;
-        Candidate l = b.align(k.start, ml, k.phaseA, at);
-        Candidate r = b.align(x, mr, atPhase, ce - x);
+        // each side votes again on its own alignment: the counts above follow k's, whose gaps a side
+        // realigned alone may not have, and the motif reported must be the majority of the side's own copies
+        Candidate l = b.settle(k.start, ml, k.phaseA, at);
+        Candidate r = b.settle(x, mr, atPhase, ce - x);
         if (l == null || r == null || !filter.accepts(l) || !filter.accepts(r)) {
             out.add(k);
             return;
