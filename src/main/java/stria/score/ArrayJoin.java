@@ -297,7 +297,7 @@ final class ArrayJoin {
         int p = u.period;
         int from = Math.max(u.start, u.end - FIXED_UNITS * p);
         int xd = CandidateBuilder.xdrop(p);
-        int phaseU = builder.bestPhase(u.model, from, u.motif, u.end - from, xd, u.phaseAt[from - u.start]);
+        int phaseU = builder.bestPhase(u.model, from, u.motif, u.end - from, xd, u.phases.at(from - u.start));
         if (builder.alignPieces(new int[] {from}, u.end, u.motif, phaseU, 1) == null) {
             return false;
         }

@@ -126,7 +126,12 @@ final class CandidateBuilder {
         int a = starts[0];
         ScoringModel model = background.at(a);
         int xd = xdrop(p) * dropScale;
-        int[] phaseAt = new int[stop - a];
+        // per piece, where its alignment starts and its phases; per gap before a piece, the phase and template
+        // advance it is drawn with
+        int[] segStart = new int[starts.length];
+        PhaseMap[] segPhases = new PhaseMap[starts.length];
+        int[] gapPhase = new int[starts.length];
+        int[] gapAdvance = new int[starts.length];
         tally.clear(p);
         long score = 0;
         int matches = 0;
@@ -152,8 +157,9 @@ final class CandidateBuilder {
                         return null;
                     }
                     score += x - end < sub ? model.substitution(b) : model.insertion();
-                    phaseAt[x - a] = (int) Math.floorMod(expected + (long) (x - end) * Math.max(0, big) / Math.max(1, g), p);
                 }
+                gapPhase[j] = expected;
+                gapAdvance[j] = Math.max(0, big);
                 int ins = g - sub + Math.max(0, -big);
                 int del = Math.max(0, big - sub);
                 mismatches += sub;
@@ -166,9 +172,10 @@ final class CandidateBuilder {
             if (len == 0) {
                 return null;
             }
-            int[] at = new int[len];
+            PhaseMap.Builder at = new PhaseMap.Builder(p);
             VoteTally.PathCounts c = tally.addPath(right, seq, s, 1, motif, phase, 0, at);
-            System.arraycopy(at, 0, phaseAt, s - a, len);
+            segStart[j] = s;
+            segPhases[j] = at.build(len);
             score += right.bestScore();
             matches += c.matches();
             mismatches += c.mismatches();
@@ -177,9 +184,25 @@ final class CandidateBuilder {
             end = s + len;
             expected = Math.floorMod(phase + right.bestJ(), p);
         }
+        // the map is built from the last base back: each piece's phases, and across each gap the phase
+        // stepped on evenly by the template advance charged for it
+        PhaseMap.Builder phases = new PhaseMap.Builder(p);
+        for (int j = starts.length - 1; j >= 0; j--) {
+            int s = segStart[j];
+            PhaseMap m = segPhases[j];
+            for (int y = s + m.length() - 1; y >= s; y--) {
+                phases.add(y - a, m.at(y - s));
+            }
+            if (j > 0) {
+                int g0 = segStart[j - 1] + segPhases[j - 1].length();
+                int g = s - g0;
+                for (int y = s - 1; y >= g0; y--) {
+                    phases.add(y - a, (int) Math.floorMod(gapPhase[j] + (long) (y - g0) * gapAdvance[j] / Math.max(1, g), p));
+                }
+            }
+        }
         return new Candidate(a, motif, phase0, (int) Math.min(Integer.MAX_VALUE, score), model,
-                new VoteTally.PathCounts(matches, mismatches, insertions, deletions),
-                Arrays.copyOf(phaseAt, end - a));
+                new VoteTally.PathCounts(matches, mismatches, insertions, deletions), phases.build(end - a));
     }
 
     /**
