@@ -28,6 +28,10 @@ public final class ResultInput implements AutoCloseable {
 
     private final String name;
     private final BufferedReader in;
+    private final char[] buf = new char[1 << 16];
+    private int pos;
+    private int lim;
+    private final StringBuilder line = new StringBuilder(256);
 
     private ResultInput(String name, BufferedReader in) {
         this.name = name;
@@ -62,10 +66,38 @@ public final class ResultInput implements AutoCloseable {
         }
     }
 
-    /** The next line without its line end, or null at the end of the file. */
+    /**
+     * The next line without its line end, or null at the end of the file. Lines end at a line feed only
+     * (one carriage return before it is dropped): a lone carriage return, which stria never writes, stays in
+     * the line, so a damaged line end is seen as damage rather than read as two lines.
+     */
     public String readLine() {
         try {
-            return in.readLine();
+            line.setLength(0);
+            while (true) {
+                if (pos == lim) {
+                    int n = in.read(buf);
+                    if (n < 0) {
+                        return line.isEmpty() ? null : line.toString();
+                    }
+                    pos = 0;
+                    lim = n;
+                }
+                int i = pos;
+                while (i < lim && buf[i] != '\n') {
+                    i++;
+                }
+                line.append(buf, pos, i - pos);
+                if (i < lim) {
+                    pos = i + 1;
+                    int len = line.length();
+                    if (len > 0 && line.charAt(len - 1) == '\r') {
+                        line.setLength(len - 1);
+                    }
+                    return line.toString();
+                }
+                pos = lim;
+            }
         } catch (IOException | RuntimeException e) {
             // a damaged BGZF part can fail inside the library's decompressor with an index error
             throw failure(name, e);

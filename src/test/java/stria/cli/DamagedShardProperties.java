@@ -109,6 +109,20 @@ class DamagedShardProperties {
         refused(FORMATS[f], k, text.getBytes(StandardCharsets.ISO_8859_1), "first " + keep + " lines");
     }
 
+    /** A line feed turned into a lone carriage return, once read as a line end (found by a random seed). */
+    @Example
+    void aLineFeedTurnedIntoACarriageReturnIsRefused() throws IOException {
+        for (String f : FORMATS) {
+            byte[] s = shard(f, 2);
+            String text = new String(s, StandardCharsets.ISO_8859_1);
+            int at = text.indexOf("\n#shard: ") + 1;
+            at = text.indexOf('\n', at);
+            byte[] damaged = s.clone();
+            damaged[at] = '\r';
+            refused(f, 2, damaged, "line feed at " + at + " made a carriage return");
+        }
+    }
+
     @Property(tries = 200)
     void aFlippedByteIsRefused(@ForAll @IntRange(min = 1, max = 3) int k, @ForAll @IntRange(max = 1) int f,
                                @ForAll @IntRange(max = 1_000_000) int at, @ForAll @IntRange(min = 1, max = 255) int xor)
