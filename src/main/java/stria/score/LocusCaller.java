@@ -29,7 +29,10 @@ import stria.repeats.RunList;
  * first copy, and a seed already inside a locus of its period (or, for recurrence seeds, of a period its
  * distance is about a multiple of) adds nothing ({@link SeedCoverage}). Otherwise its first copy is the provisional motif and the locus is
  * extended both ways by aligning against the repeated motif ({@link WrapAligner}: wraparound dynamic
- * programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop). The
+ * programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop). A seed
+ * whose extension reaches less than {@link #REJECT_SHARE} of the copies a locus needs is dropped there
+ * (the bases after its first copy are aligned first, so a long unit that does not recur costs little),
+ * and what it reached counts as explained for its period. The
  * copies other than the seed's then vote on the consensus ({@link VoteTally}, {@link Consensus}): the majority letter at each phase, a phase
  * most copies lack is dropped and a base most copies insert is added, so a seed copy carrying an indel
  * does not fix the period; the result is reduced to its primitive root. A last alignment against the
@@ -72,6 +75,13 @@ public final class LocusCaller {
     public static final int SEED_MAX_PERIOD = 12;
     /** Bases beyond one copy an exact run needs to seed: 6 keeps random DNA to a few seeds per kb. */
     public static final int SEED_EXTRA = 6;
+    /**
+     * Share of the copies a locus needs ({@code --min-copies}) that the first extension of a seed must
+     * reach, or the seed is dropped before its consensus is voted on and realigned. In human DNA most
+     * seeds of long period are the recurrence of a word between two nearby copies of one interspersed
+     * element: one copy and a part, never two.
+     */
+    static final double REJECT_SHARE = 0.75;
 
     private final ScoreSettings settings;
     private final LocusFilter filter;
@@ -199,7 +209,7 @@ public final class LocusCaller {
         if (q1 < (lo == 0 ? 0 : lo + margin() + rmax) || q2 > (hi >= length ? length : hi - margin() - rmax)) {
             return null;
         }
-        CandidateBuilder builder = new CandidateBuilder(seq, background, ws);
+        CandidateBuilder builder = new CandidateBuilder(seq, background, ws, settings.minCopies() * REJECT_SHARE);
         List<Candidate> cands = candidates(builder, seeds, quiet, q1, q2);
         List<Candidate> won = Competition.resolve(cands, (k, g0, g1) -> trimmed(builder, k, g0, g1));
         won = ArrayJoin.join(builder, filter, quiet, won);
@@ -228,6 +238,9 @@ public final class LocusCaller {
             }
             int c = quiet.componentAt(s);
             Candidate k = builder.build(s, p, quiet.start(c), quiet.end(c));
+            if (k == null && builder.reachEnd > builder.reachStart) {
+                coverage.add(builder.reachStart, builder.reachEnd, p, p);
+            }
             if (k != null) {
                 coverage.add(k, p);
                 if (filter.accepts(k)) {
