@@ -41,6 +41,11 @@ final class ImperfectMode implements ScanMode {
     }
 
     @Override
+    public int enginePeriod() {
+        return caller.seedPeriod();
+    }
+
+    @Override
     public int readPad() {
         return caller.readPad();
     }

@@ -102,6 +102,11 @@ public final class LocusCaller {
         return Seeds.isExact(start, end, period, settings.maxPeriod());
     }
 
+    /** The longest period of the runs {@link #isSeed} accepts: the engine need not look further. */
+    public int seedPeriod() {
+        return Math.min(SEED_MAX_PERIOD, settings.maxPeriod());
+    }
+
     /** Bases beyond {@code [from, to)} a call may need on each side in the best case (no repeat nearby). */
     public int minimumContext() {
         return margin() + QuietPoints.reach(settings.maxPeriod()) + RecurrenceSeeds.K + 1;
