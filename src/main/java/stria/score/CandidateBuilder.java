@@ -81,28 +81,20 @@ final class CandidateBuilder {
         // paths are never walked
         left.extend(model, seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
         int leftLen = left.bestI();
-        int rightCap = Math.min(ce - s, VOTE_COPIES * p + 64);
-        // bases past the seed copy the right end must reach: the seed copy aligns with itself, so the
-        // alignment of the bases after it against the motif decides, at a fraction of the cost of a long unit
-        int need = (int) Math.ceil(rejectCopies * p) - leftLen - p;
-        int cap = Math.min(rightCap - p, need);
-        if (need > 0 && cap >= 0) {
-            right.extend(model, seq, s + p, 1, m0, p, 0, cap, xd);
-            if (right.bestI() < need && (right.rows() < cap || cap < need)) {
-                return rejected(s - leftLen, s + p + right.bestI());
-            }
-        }
-        right.extend(model, seq, s, 1, m0, p, 0, rightCap, xd);
-        int reach = leftLen + right.bestI();
+        // the seed copy aligns with itself: the right end is found by aligning the bases after it against
+        // the motif from its first letter, which for a long unit that does not recur is a fraction of the work
+        int rightCap = Math.max(0, Math.min(ce - s, VOTE_COPIES * p + 64) - p);
+        right.extend(model, seq, s + p, 1, m0, p, 0, rightCap, xd);
+        int reach = leftLen + p + right.bestI();
         if (reach < p + LocusCaller.SEED_EXTRA) {
             return null;
         }
         if (reach < rejectCopies * p) {
-            return rejected(s - leftLen, s + right.bestI());
+            return rejected(s - leftLen, s + p + right.bestI());
         }
         tally.clear(p);
-        // the seed copy, which the motif was read from, does not vote
-        tally.addPath(right, seq, s, 1, m0, 0, p, null);
+        // the seed copy, which the motif was read from, does not vote (nor is it on the right path)
+        tally.addPath(right, seq, s + p, 1, m0, 0, 0, null);
         tally.addPath(left, seq, s - 1, -1, m0, p - 1, 0, null);
         int a = s - leftLen;
         int phaseA = leftLen == 0 ? 0 : Math.floorMod(p - left.bestJ(), p);
