@@ -83,6 +83,17 @@ public final class LocusCaller {
      */
     static final double REJECT_SHARE = 0.75;
 
+    /** Sides of a stretch without a quiet point far enough inside, in {@link ScoreWorkspace#unsolvedSides}. */
+    static final int LEFT = 1;
+    static final int RIGHT = 2;
+
+    /**
+     * The pad around {@code [from, to)} that the last call needed, where the next one starts: in DNA dense in
+     * interspersed repeats quiet points are far apart, and every stretch too short is a recurrence scan
+     * wasted. Only the work depends on it, never the loci, so threads may race on it.
+     */
+    private volatile long padHint;
+
     private final ScoreSettings settings;
     private final LocusFilter filter;
     private final CompoundSplit split;
@@ -91,6 +102,7 @@ public final class LocusCaller {
         this.settings = settings;
         this.filter = new LocusFilter(settings);
         this.split = new CompoundSplit(filter, settings.minLength());
+        this.padHint = 4L * minimumContext();
     }
 
     /**
@@ -154,23 +166,31 @@ public final class LocusCaller {
         if (from >= to) {
             return List.of();
         }
-        // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
-        // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
-        long pad = 4L * minimumContext();
+        // work on a stretch around [from, to) first and widen it only when it holds no quiet point, and only
+        // on the side that lacks one: a pipeline that scores a long contig in pieces then does not rescan
+        // the whole contig per piece, nor a side that was fine
+        long padLeft = padHint;
+        long padRight = padLeft;
         byte[] whole = seq.array();
         while (true) {
-            int a = (int) Math.max(lo, from - pad);
-            int b = (int) Math.min(hi, to + pad);
+            int a = (int) Math.max(lo, from - padLeft);
+            int b = (int) Math.min(hi, to + padRight);
             List<Locus> r = whole != null ? solve(ws, whole, seq.length(), background, seeds, a, b, from, to)
                     : solveSlice(ws, seq, background, seeds, a, b, from, to);
             if (r != null) {
+                padHint = Math.max(4L * minimumContext(), Math.max(padLeft, padRight));
                 return r;
             }
             if (a == lo && b == hi) {
                 throw new NeedMoreContextException("no quiet point within the known runs around [" + from + ", "
                         + to + ") given [" + lo + ", " + hi + ")");
             }
-            pad *= 4;
+            if ((ws.unsolvedSides & LEFT) != 0 || b == hi) {
+                padLeft *= 4;
+            }
+            if ((ws.unsolvedSides & RIGHT) != 0 || a == lo) {
+                padRight *= 4;
+            }
         }
     }
 
@@ -211,7 +231,9 @@ public final class LocusCaller {
         int rmax = QuietPoints.reach(settings.maxPeriod()) + RecurrenceSeeds.K + 1;
         int q1 = quiet.atOrBefore(from);
         int q2 = quiet.atOrAfter(to);
-        if (q1 < (lo == 0 ? 0 : lo + margin() + rmax) || q2 > (hi >= length ? length : hi - margin() - rmax)) {
+        ws.unsolvedSides = (q1 < (lo == 0 ? 0 : lo + margin() + rmax) ? LEFT : 0)
+                | (q2 > (hi >= length ? length : hi - margin() - rmax) ? RIGHT : 0);
+        if (ws.unsolvedSides != 0) {
             return null;
         }
         CandidateBuilder builder = new CandidateBuilder(seq, background, ws, settings.minCopies() * REJECT_SHARE);

@@ -12,4 +12,6 @@ public final class ScoreWorkspace {
     final WrapAligner left = new WrapAligner();
     final VoteTally tally = new VoteTally();
     final RecurrenceSeeds recurrence = new RecurrenceSeeds();
+    /** The sides ({@link LocusCaller#LEFT}, {@link LocusCaller#RIGHT}) the last failed solve lacked a quiet point on. */
+    int unsolvedSides;
 }
