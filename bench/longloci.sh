@@ -18,7 +18,12 @@ for mb in "${sizes[@]}"; do
     if [[ ! -s "$fa" ]]; then
       unit=A
       [[ $kind == dinucleotide ]] && unit=AC
-      { echo ">$kind"; yes "$unit" | tr -d '\n' | head -c "$((mb * 1000000))" | fold -w 60; echo; } > "$fa"
+      # awk, not yes | head: under pipefail the producer's SIGPIPE would end the script
+      awk -v name="$kind" -v unit="$unit" -v n="$((mb * 1000000))" 'BEGIN {
+        print ">" name; line = ""; while (length(line) < 60) line = line unit
+        for (i = 0; i + 60 <= n; i += 60) print line
+        if (i < n) print substr(line, 1, n - i) }' > "$fa.tmp"
+      mv "$fa.tmp" "$fa"
     fi
     for mode in default exact; do
       flag=""

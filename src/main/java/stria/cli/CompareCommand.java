@@ -156,6 +156,9 @@ public final class CompareCommand implements Callable<Integer> {
             }
             OutputStream sumOut = summary == null ? null : outputs.open(summary);
             CompareWriter w = new CompareWriter(header, gb.contigs(), tsvOut, tsv, aOut, bOut);
+            if (shard != null) {
+                w.sealed();
+            }
             GenomeComparison.run(ga, gb, aLoci, bLoci, settings, cs, shard, showProgress, w);
             w.finish();
             List<String> table = w.summary().lines();

@@ -30,7 +30,8 @@ import stria.shard.ShardMerge;
                 + "the parts of one split comparison (compare --shard K/N, with --tsv).",
                 "Files may be given in any order, plain, gzip or BGZF; the set must hold every shard 1..N exactly "
                         + "once, all from the same input and settings.",
-                "Each shard must end with the closing #end line scan --shard writes last, and agree with it (a shard "
+                "Each shard or part must end with the closing #end line scan --shard (compare --shard) writes last, "
+                        + "and agree with it (a shard "
                         + "cut short, emptied or edited is refused, by name); all are checked before anything is "
                         + "written.",
                 ""},

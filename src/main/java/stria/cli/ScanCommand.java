@@ -221,6 +221,8 @@ public final class ScanCommand implements Callable<Integer> {
 
     /** Checks the options (usage errors, exit 2) and builds the settings through {@link ScanOptions}. */
     ScanSettings settings() {
+        require(inputs.stream().filter("-"::equals).count() <= 1,
+                "standard input (-) is given more than once; it can be read only once");
         require(shard == null || regions.isEmpty(), "--shard and --region cannot be combined");
         require(catalogMaxPeriod >= 1, "--catalog-max-period must be at least 1 (got " + catalogMaxPeriod + ")");
         require(flank >= 0 && flank <= CatalogLines.MAX_FLANK, "--flank must be 0 to " + CatalogLines.MAX_FLANK

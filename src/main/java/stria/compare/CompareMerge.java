@@ -9,6 +9,7 @@ import stria.StriaException;
 import stria.io.ContigInfo;
 import stria.out.ResultHeader;
 import stria.out.ResultInput;
+import stria.out.ResultSeal;
 import stria.shard.ShardId;
 
 /**
@@ -19,7 +20,8 @@ import stria.shard.ShardId;
  * (each part lists them in B's order, so all parts are read side by side once).
  *
  * <p>Before anything is written the set is checked: every part 1..N once, all of the same A, B, settings
- * and version.
+ * and version, and each part complete: it ends with the closing line ({@link ResultSeal}) that
+ * {@code compare --shard} writes last, and its rows agree with it.
  */
 public final class CompareMerge {
     private record Part(String file, CompareHeader header, String input, String otherInput, ShardId id) {
@@ -68,6 +70,9 @@ public final class CompareMerge {
             }
             byK[p.id.k()] = p;
         }
+        for (Part p : parts) {
+            checkSeal(p);
+        }
         List<Integer> missing = new ArrayList<>();
         for (int k = 1; k <= first.id.n(); k++) {
             if (byK[k] == null) {
@@ -103,7 +108,8 @@ public final class CompareMerge {
             try (ResultInput in = open(p)) {
                 long[] last = {-1, -1};
                 String line;
-                while ((line = in.readLine()) != null && !line.startsWith(".\t")) {
+                while ((line = in.readLine()) != null && !line.startsWith(".\t")
+                        && !line.startsWith(ResultSeal.PREFIX)) {
                     String[] f = line.split("\t", 3);
                     Integer r = aRank.get(f[0]);
                     long start = r == null || f.length < 3 ? -1 : parse(f[1]);
@@ -130,9 +136,11 @@ public final class CompareMerge {
             for (int i = 0; i < n; i++) {
                 in[i] = open(parts.get(i));
                 String line;
-                while ((line = in[i].readLine()) != null && !line.startsWith(".\t")) {
+                while ((line = in[i].readLine()) != null && !line.startsWith(".\t")
+                        && !line.startsWith(ResultSeal.PREFIX)) {
                     // A's rows: read before
                 }
+                line = closing(line);
                 head[i] = line;
                 key[i] = line == null ? null : newKey(parts.get(i).file, line, bRank);
             }
@@ -155,7 +163,7 @@ public final class CompareMerge {
                 }
                 for (int i = 0; i < n; i++) {
                     if (compare(key[i], min) == 0) {
-                        String next = in[i].readLine();
+                        String next = closing(in[i].readLine());
                         long[] k = next == null ? null : newKey(parts.get(i).file, next, bRank);
                         if (k != null && compare(k, key[i]) <= 0) {
                             throw new StriaException(parts.get(i).file + ": new rows out of B's order at "
@@ -172,6 +180,47 @@ public final class CompareMerge {
                     r.close();
                 }
             }
+        }
+    }
+
+    /** Null for the closing line (the end of a part's rows), else the line. */
+    private static String closing(String line) {
+        return line != null && line.startsWith(ResultSeal.PREFIX) ? null : line;
+    }
+
+    /** Refuses a part that does not end with its closing line, or whose rows disagree with it. */
+    private static void checkSeal(Part p) {
+        ResultSeal body = new ResultSeal();
+        String closing = null;
+        try (ResultInput in = ResultInput.open(p.file, StandardCharsets.ISO_8859_1)) {
+            String line;
+            while ((line = in.readLine()) != null && !line.equals(CompareRow.HEADER)) {
+                // header lines
+            }
+            long lineNo = 0;
+            while ((line = in.readLine()) != null) {
+                lineNo++;
+                if (closing != null) {
+                    throw new StriaException(p.file + ": a line after the closing " + ResultSeal.PREFIX.strip()
+                            + " line (row " + lineNo + "); the file is damaged");
+                }
+                if (line.startsWith(ResultSeal.PREFIX)) {
+                    closing = line;
+                } else {
+                    body.line(line);
+                }
+            }
+        }
+        if (closing == null) {
+            throw new StriaException(p.file + " is incomplete: it does not end with the " + ResultSeal.PREFIX.strip()
+                    + " line that compare --shard writes last (cut short, or emptied); compare part " + p.id
+                    + " again");
+        }
+        String expected = body.closingLine();
+        if (!closing.equals(expected)) {
+            throw new StriaException(p.file + " is damaged: its closing line says "
+                    + closing.substring(ResultSeal.PREFIX.length()) + " but its rows give "
+                    + expected.substring(ResultSeal.PREFIX.length()) + "; compare part " + p.id + " again");
         }
     }
 

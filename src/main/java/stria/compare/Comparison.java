@@ -607,8 +607,8 @@ public final class Comparison {
     /**
      * One contig of B going past the index. Its last bases wait in a ring (as codes) long enough for any
      * locus' stretch between its outermost anchors: when an anchor of the second side of a locus (in B's
-     * order) comes by and one of the first side came by shortly before on the same strand, B's bases from
-     * that one on are copied to the locus.
+     * order) comes by and one of the first side came by shortly before on the same strand, both words seen
+     * once in B so far, B's bases from that one on are copied to the locus.
      */
     private final class BStream implements KmerScanner.Hits {
         private final int contig;
@@ -639,7 +639,9 @@ public final class Comparison {
         public void hit(int slot, int start, boolean canonicalOnPlus) {
             AnchorTable t = table;
             t.addB(slot, contig, start, canonicalOnPlus);
-            if (t.countA(slot) != 1) {
+            // a word seen twice in B anchors nothing: a stretch it would start or end must not take the
+            // place of one kept for words that may still be unique, which B's order alone would decide
+            if (t.countA(slot) != 1 || t.countB(slot) != 1) {
                 return;
             }
             boolean plus = t.sameStrand(slot, canonicalOnPlus);
@@ -656,7 +658,7 @@ public final class Comparison {
                 int base = g * 2 * m + firstSide * m;
                 for (int j = 0; j < m; j++) {
                     int q = t.slotOfAnchor[base + j];
-                    if (q < 0 || t.countA(q) != 1 || t.countB(q) == 0 || t.hitContig(q) != contig
+                    if (q < 0 || t.countA(q) != 1 || t.countB(q) != 1 || t.hitContig(q) != contig
                             || t.sameStrand(q) != plus) {
                         continue;
                     }

@@ -38,7 +38,9 @@
  * word of the second side of a locus (in B's order: the left side first on the + strand, the right side
  * first on the - strand) comes by and words of the first side came by shortly before, B's bases from the
  * first of those on are kept for the locus, two bits a base ({@link stria.compare.KeptStretches}). Which
- * anchors are unique in B is known only at the end, so the stretch kept runs from the outermost anchors.
+ * anchors are unique in B is known only at the end, so the stretch kept runs from the outermost anchors;
+ * a word already seen twice in B neither starts nor ends one (a stretch it brought would replace the one
+ * kept for unique words, and only B's order, not its content, would say which is left).
  *
  * <h2>Measurement</h2>
  * B's repeat length comes from B's own bases between the anchors. A's stretch between the same anchors

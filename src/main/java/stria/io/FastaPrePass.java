@@ -1,7 +1,6 @@
 package stria.io;
 
 import java.io.ByteArrayOutputStream;
-import java.nio.charset.StandardCharsets;
 
 import stria.StriaException;
 
@@ -40,6 +39,8 @@ final class FastaPrePass {
     private long lineBases;
     /** Offset of the last CR seen by the byte loop, which tells a CRLF line end from a CR among the bases. */
     private long lastCr = -1;
+    /** The header line's last byte was a carriage return: the next must be its line feed. */
+    private boolean headerCr;
     /** The byte loop stopped at the line end in.pos points at, for {@link #lineEnd} to look at the line. */
     private boolean lineToCheck;
 
@@ -175,7 +176,10 @@ final class FastaPrePass {
         if (name.size() == 0) {
             throw new StriaException(display + ": line " + headerLine + ": header line has no record name after '>'");
         }
-        current = name.toString(StandardCharsets.UTF_8);
+        current = FastaSyntax.name(name);
+        if (current == null) {
+            throw new StriaException(display + ": line " + headerLine + ": " + FastaSyntax.NOT_UTF8);
+        }
         length = 0;
     }
 
@@ -185,6 +189,11 @@ final class FastaPrePass {
         int lim = in.lim;
         while (i < lim) {
             int c = b[i] & 0xFF;
+            if (headerCr && c != '\n') {
+                throw new StriaException(display + ": line " + headerLine + ": a carriage return not followed by a "
+                        + "line feed; lines that end with CR alone are not read: convert the line ends to LF or CRLF");
+            }
+            headerCr = c == '\r';
             if (c == '\n') {
                 line++;
                 in.pos = i + 1;

@@ -30,6 +30,26 @@ final class FastaSyntax {
         return i;
     }
 
+    /**
+     * A record name's bytes as text, or null when they are not valid UTF-8. A name is written into every
+     * output line, where tools match it byte for byte against the FASTA and its index; a name that cannot
+     * be written back as the same bytes is refused rather than altered.
+     */
+    static String name(java.io.ByteArrayOutputStream bytes) {
+        try {
+            return java.nio.charset.StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(java.nio.charset.CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(java.nio.charset.CodingErrorAction.REPORT)
+                    .decode(java.nio.ByteBuffer.wrap(bytes.toByteArray())).toString();
+        } catch (java.nio.charset.CharacterCodingException e) {
+            return null;
+        }
+    }
+
+    /** Why a name of {@link #name} null is refused. */
+    static final String NOT_UTF8 = "record name is not valid UTF-8 text (outputs must repeat it byte for byte); "
+            + "rename the record";
+
     /** Control bytes never appear in FASTA text; seeing one means binary data. */
     static boolean isControl(int b) {
         return (b < 0x20 && b != '\t' && b != '\n' && b != '\r' && b != 0x0B && b != 0x0C) || b == 0x7F;

@@ -1,7 +1,6 @@
 package stria.io;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.util.List;
 
@@ -154,7 +153,11 @@ final class IndexFiles {
         if (name.size() == 0) {
             throw new StriaException(display + ": header line at offset " + start + " has no record name after '>'");
         }
-        return name.toString(StandardCharsets.UTF_8);
+        String text = FastaSyntax.name(name);
+        if (text == null) {
+            throw new StriaException(display + ": header line at offset " + start + ": " + FastaSyntax.NOT_UTF8);
+        }
+        return text;
     }
 
     /** The layout an entry claims, or null when it is impossible. */

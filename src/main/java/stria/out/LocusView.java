@@ -8,7 +8,8 @@ import stria.score.Locus;
 
 /**
  * One locus drawn for a person checking the call: the consensus on top, below it the copies one per line
- * as {@link CopyAlignment} aligns them, each labelled with the 1-based position of its first base. Columns
+ * as {@link CopyAlignment} aligns them, each labelled with the 1-based position of its first base (in a
+ * wrapped block, of its first base in that block). Columns
  * line up: every consensus letter has a column, and each gap between two letters is as wide as the longest
  * insertion any copy has there. A base that agrees with the consensus is upper case, a mismatch is lower
  * case under its consensus letter, an insertion is lower case under a {@code .} of the consensus, and a
@@ -25,6 +26,8 @@ public final class LocusView {
     private final String title;
     private final List<String> notes = new ArrayList<>();
     private final List<String> labels = new ArrayList<>();
+    /** Per row: the 0-based position of its first base, or -1 for the consensus. */
+    private final List<Integer> firstBases = new ArrayList<>();
     private final List<char[]> rows = new ArrayList<>();
     private final List<Kind[]> kinds = new ArrayList<>();
 
@@ -100,6 +103,7 @@ public final class LocusView {
             consKinds[offset[j]] = Kind.CONSENSUS;
         }
         labels.add("consensus");
+        firstBases.add(-1);
         rows.add(cons);
         kinds.add(consKinds);
         int pos = locus.start();
@@ -149,6 +153,7 @@ public final class LocusView {
                 row[x] = ' ';
             }
             labels.add(count(firstBase + 1));
+            firstBases.add(firstBase);
             rows.add(row);
             kinds.add(kind);
         }
@@ -168,8 +173,10 @@ public final class LocusView {
         for (Block b : blocks(width)) {
             out.add("");
             for (int r = 0; r < rows.size(); r++) {
-                out.add(pad(labels.get(r), b.labelWidth) + "  " + new String(rows.get(r), b.from, b.to - b.from)
-                        .stripTrailing());
+                String drawn = new String(rows.get(r), b.from, b.to - b.from).stripTrailing();
+                if (!drawn.isEmpty()) { // a partial last copy may end before the block
+                    out.add(pad(label(r, b.from), b.labelWidth) + "  " + drawn);
+                }
             }
         }
         return out;
@@ -189,8 +196,11 @@ public final class LocusView {
             }
             firstBlock = false;
             for (int r = 0; r < rows.size(); r++) {
-                sb.append(esc(pad(labels.get(r), b.labelWidth))).append("  ");
                 char[] row = rows.get(r);
+                if (new String(row, b.from, b.to - b.from).isBlank()) {
+                    continue; // a partial last copy may end before the block
+                }
+                sb.append(esc(pad(label(r, b.from), b.labelWidth))).append("  ");
                 Kind[] kind = kinds.get(r);
                 for (int x = b.from; x < b.to; x++) {
                     String cls = switch (kind[x]) {
@@ -218,6 +228,23 @@ public final class LocusView {
     private record Block(int from, int to, int labelWidth) {
     }
 
+    /**
+     * Row {@code r}'s label in a block that starts at column {@code from}: the 1-based position of the copy's
+     * first base drawn in the block (its bases in earlier blocks counted), so a wrapped copy reads on.
+     */
+    private String label(int r, int from) {
+        int first = firstBases.get(r);
+        if (first < 0) {
+            return labels.get(r);
+        }
+        char[] row = rows.get(r);
+        int before = 0;
+        for (int x = 0; x < from; x++) {
+            before += Character.isLetter(row[x]) ? 1 : 0;
+        }
+        return count(first + before + 1L);
+    }
+
     private List<Block> blocks(int width) {
         List<Block> out = new ArrayList<>();
         if (rows.isEmpty()) {
@@ -227,8 +254,13 @@ public final class LocusView {
         for (String l : labels) {
             label = Math.max(label, l.length());
         }
-        int room = Math.max(1, width - label - 2);
         int grid = rows.get(0).length;
+        int last = firstBases.get(firstBases.size() - 1);
+        if (last >= 0 && grid > width - label - 2) {
+            // wrapped blocks label copies further on: room for the widest position in the locus
+            label = Math.max(label, count(last + (long) grid + 1).length());
+        }
+        int room = Math.max(1, width - label - 2);
         for (int from = 0; from < grid; from += room) {
             out.add(new Block(from, Math.min(grid, from + room), label));
         }

@@ -14,6 +14,7 @@ import stria.score.LocusCaller;
 import stria.score.NeedMoreContextException;
 import stria.score.ScoreSettings;
 import stria.score.ScoreWorkspace;
+import stria.score.SharedComponents;
 
 /**
  * Imperfect loci: the unit keeps the scorer's seed runs and hands them to {@link LocusCaller} in independent
@@ -72,12 +73,14 @@ final class ImperfectMode implements ScanMode {
             public void finish(ExecutorService pool, LongConsumer solved) throws InterruptedException {
                 // every block the scorer reads is in by now: the windows have read the whole stretch
                 Background background = seq.background();
+                // a locus longer than a chunk is solved once, not once per chunk it touches
+                SharedComponents shared = new SharedComponents();
                 List<Future<List<Locus>>> parts = new ArrayList<>();
                 for (long a = unit.from(); a < unit.to(); a += chunk) {
                     int from = (int) a;
                     int to = (int) Math.min(unit.to(), a + chunk);
                     parts.add(pool.submit(() -> caller.call(new ScoreWorkspace(), seq, background, seeds, plan.lo(),
-                            plan.hi(), from, to)));
+                            plan.hi(), from, to, shared)));
                 }
                 // a whole contig has all the context there is: its chunks are written as they are ready;
                 // a part is written only once every chunk had context enough

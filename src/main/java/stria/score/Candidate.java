@@ -6,7 +6,7 @@ import stria.io.Bases;
  * A candidate locus {@code [start, end)} in the coordinates of the sequence it was aligned on (0-based, end
  * exclusive), with the alignment figures needed to report it, trim it or vote on its consensus: the motif
  * as aligned (codes 0..3, read from phase {@code phaseA} at {@code start}; its length is the period) and the
- * phase of every base ({@code phaseAt[x - start]}). Immutable by convention: the arrays are never written
+ * phase of every base ({@code phases.at(x - start)}). Immutable by convention: the arrays are never written
  * after construction.
  */
 final class Candidate {
@@ -23,21 +23,21 @@ final class Candidate {
     final int mismatches;
     final int insertions;
     final int deletions;
-    final int[] phaseAt;
+    final PhaseMap phases;
     /** Length of the shorter diverged unit the motif is made of, and how many make one motif; 0 when none. */
     final int subunitPeriod;
     final int subunits;
 
     Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, VoteTally.PathCounts counts,
-              int[] phaseAt) {
+              PhaseMap phases) {
         this(start, motif, phaseA, score, model, counts.matches(), counts.mismatches(), counts.insertions(),
-                counts.deletions(), phaseAt, 0, 0);
+                counts.deletions(), phases, 0, 0);
     }
 
     private Candidate(int start, byte[] motif, int phaseA, int score, ScoringModel model, int matches,
-                      int mismatches, int insertions, int deletions, int[] phaseAt, int subunitPeriod, int subunits) {
+                      int mismatches, int insertions, int deletions, PhaseMap phases, int subunitPeriod, int subunits) {
         this.start = start;
-        this.end = start + phaseAt.length;
+        this.end = start + phases.length();
         this.period = motif.length;
         this.motif = motif;
         this.phaseA = phaseA;
@@ -47,14 +47,14 @@ final class Candidate {
         this.mismatches = mismatches;
         this.insertions = insertions;
         this.deletions = deletions;
-        this.phaseAt = phaseAt;
+        this.phases = phases;
         this.subunitPeriod = subunitPeriod;
         this.subunits = subunits;
     }
 
     /** The same candidate with its motif made of {@code subunits} diverged units of {@code subunitPeriod}. */
     Candidate withSubunits(int subunitPeriod, int subunits) {
-        return new Candidate(start, motif, phaseA, score, model, matches, mismatches, insertions, deletions, phaseAt,
+        return new Candidate(start, motif, phaseA, score, model, matches, mismatches, insertions, deletions, phases,
                 subunitPeriod, subunits);
     }
 

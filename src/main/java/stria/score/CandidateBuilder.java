@@ -156,9 +156,9 @@ final class CandidateBuilder {
         if (len == 0) {
             return null;
         }
-        int[] phaseAt = new int[len];
+        PhaseMap.Builder phases = new PhaseMap.Builder(p);
         tally.clear(p);
-        VoteTally.PathCounts counts = tally.addPath(right, seq, a, 1, motif, phaseA, 0, phaseAt);
-        return new Candidate(a, motif, phaseA, right.bestScore(), model, counts, phaseAt);
+        VoteTally.PathCounts counts = tally.addPath(right, seq, a, 1, motif, phaseA, 0, phases);
+        return new Candidate(a, motif, phaseA, right.bestScore(), model, counts, phases.build(len));
     }
 }

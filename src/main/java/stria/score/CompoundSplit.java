@@ -8,7 +8,8 @@ import stria.io.Bases;
  * through such a change (two letters of three still match), so the split is found afterwards. The split
  * point is where separate majority consensuses for the two sides agree with the most bases; it is taken
  * when that gains at least {@link #SPLIT_GAIN} of the locus' bases (and {@link #SPLIT_MIN_GAIN} bases)
- * over one consensus, each side keeps two copies and both sides, realigned, pass the filter.
+ * over one consensus, each side keeps two copies and both sides, realigned and voted on again on their own
+ * alignments ({@link CandidateBuilder#settle}), pass the filter.
  */
 final class CompoundSplit {
     /** Share of a locus' bases a split must gain, and the fewest bases, so chance variation never splits. */
@@ -33,12 +34,9 @@ final class CompoundSplit {
             out.add(k);
             return;
         }
+        // the bases and their phases are read in order, never copied out: a locus may be megabases long
         byte[] seq = b.seq();
-        int[] code = new int[len];
-        for (int i = 0; i < len; i++) {
-            code[i] = Bases.code(seq[k.start + i]);
-        }
-        int at = splitPoint(k, code);
+        int at = splitPoint(k, seq);
         if (at < 0) {
             out.add(k);
             return;
@@ -46,8 +44,14 @@ final class CompoundSplit {
         // the two consensuses, counted again on each side of the chosen point
         int[] left = new int[4 * p];
         int[] right = new int[4 * p];
+        PhaseMap.Cursor phase = k.phases.cursor();
+        int atPhase = 0;
         for (int i = 0; i < len; i++) {
-            (i < at ? left : right)[4 * k.phaseAt[i] + code[i]]++;
+            int ph = phase.next();
+            if (i == at) {
+                atPhase = ph;
+            }
+            (i < at ? left : right)[4 * ph + Bases.code(seq[k.start + i])]++;
         }
         byte[] ml = new byte[p];
         byte[] mr = new byte[p];
@@ -60,8 +64,10 @@ final class CompoundSplit {
             return;
         }
         int x = k.start + at;
-        Candidate l = b.align(k.start, ml, k.phaseA, at);
-        Candidate r = b.align(x, mr, k.phaseAt[at], ce - x);
+        // each side votes again on its own alignment: the counts above follow k's, whose gaps a side
+        // realigned alone may not have, and the motif reported must be the majority of the side's own copies
+        Candidate l = b.settle(k.start, ml, k.phaseA, at);
+        Candidate r = b.settle(x, mr, atPhase, ce - x);
         if (l == null || r == null || !filter.accepts(l) || !filter.accepts(r)) {
             out.add(k);
             return;
@@ -72,15 +78,16 @@ final class CompoundSplit {
 
     /**
      * Offset in {@code k} of the best split point by the majority count, or -1 when no point leaves both
-     * sides long enough and gains enough. {@code code} holds the base codes of {@code k}.
+     * sides long enough and gains enough. {@code seq} holds the bases of {@code k}.
      */
-    private int splitPoint(Candidate k, int[] code) {
+    private int splitPoint(Candidate k, byte[] seq) {
         int p = k.period;
-        int len = code.length;
+        int len = k.length();
         int[] left = new int[4 * p];
         int[] right = new int[4 * p];
+        PhaseMap.Cursor phase = k.phases.cursor();
         for (int i = 0; i < len; i++) {
-            right[4 * k.phaseAt[i] + code[i]]++;
+            right[4 * phase.next() + Bases.code(seq[k.start + i])]++;
         }
         int single = 0;
         for (int ph = 0; ph < p; ph++) {
@@ -90,11 +97,13 @@ final class CompoundSplit {
         int best = single;
         int bestAt = -1;
         int minSide = Math.max(2 * p, minLength);
+        phase = k.phases.cursor();
         for (int i = 0; i < len - minSide; i++) {
-            int ph = k.phaseAt[i];
+            int ph = phase.next();
+            int c = Bases.code(seq[k.start + i]);
             int before = max4(left, ph) + max4(right, ph);
-            left[4 * ph + code[i]]++;
-            right[4 * ph + code[i]]--;
+            left[4 * ph + c]++;
+            right[4 * ph + c]--;
             sum += max4(left, ph) + max4(right, ph) - before;
             if (i + 1 >= minSide && sum > best) {
                 best = sum;

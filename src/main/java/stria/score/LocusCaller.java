@@ -163,6 +163,18 @@ public final class LocusCaller {
      */
     public List<Locus> call(ScoreWorkspace ws, ContigBytes seq, Background background, RunList seeds, int lo, int hi,
                             int from, int to) {
+        return call(ws, seq, background, seeds, lo, hi, from, to, null);
+    }
+
+    /**
+     * As {@link #call(ScoreWorkspace, ContigBytes, Background, RunList, int, int, int, int)}, with the
+     * components of seed reaches that reach past {@code [from, to)} solved once for all the calls that
+     * share {@code shared} (null: each call solves alone). The calls sharing it must have the same
+     * {@code seq}, {@code background}, {@code seeds}, {@code lo} and {@code hi}; the loci are the same
+     * either way, but a locus longer than the stretches is solved once instead of once per stretch.
+     */
+    public List<Locus> call(ScoreWorkspace ws, ContigBytes seq, Background background, RunList seeds, int lo, int hi,
+                            int from, int to, SharedComponents shared) {
         if (from >= to) {
             return List.of();
         }
@@ -173,10 +185,14 @@ public final class LocusCaller {
         long padRight = padLeft;
         byte[] whole = seq.array();
         while (true) {
+            List<Locus> known = shared == null ? null : shared.covering(from, to);
+            if (known != null) {
+                return known;
+            }
             int a = (int) Math.max(lo, from - padLeft);
             int b = (int) Math.min(hi, to + padRight);
-            List<Locus> r = whole != null ? solve(ws, whole, seq.length(), background, seeds, a, b, from, to)
-                    : solveSlice(ws, seq, background, seeds, a, b, from, to);
+            List<Locus> r = whole != null ? solve(ws, whole, seq.length(), background, seeds, a, b, from, to, 0, shared)
+                    : solveSlice(ws, seq, background, seeds, a, b, from, to, shared);
             if (r != null) {
                 padHint = Math.max(4L * minimumContext(), Math.max(padLeft, padRight));
                 return r;
@@ -196,7 +212,7 @@ public final class LocusCaller {
 
     /** {@link #solve} on a copy of {@code [lo - readPad, hi + readPad)}, in contig coordinates. */
     private List<Locus> solveSlice(ScoreWorkspace ws, ContigBytes seq, Background background, RunList seeds, int lo,
-                                   int hi, int from, int to) {
+                                   int hi, int from, int to, SharedComponents shared) {
         int length = seq.length();
         int base = Math.max(0, lo - readPad());
         int end = (int) Math.min(length, (long) hi + readPad());
@@ -211,7 +227,7 @@ public final class LocusCaller {
             }
         }
         List<Locus> r = solve(ws, slice, length - base, background.shifted(base), local, lo - base, hi - base,
-                from - base, to - base);
+                from - base, to - base, base, shared);
         if (r == null || base == 0) {
             return r;
         }
@@ -222,9 +238,12 @@ public final class LocusCaller {
         return out;
     }
 
-    /** The loci of [from, to) computed from what is known in [lo, hi), or null if that cannot be decided. */
+    /**
+     * The loci of [from, to) computed from what is known in [lo, hi), or null if that cannot be decided;
+     * {@code seq} starts at contig position {@code origin}.
+     */
     private List<Locus> solve(ScoreWorkspace ws, byte[] seq, int length, Background background, RunList runs, int lo,
-                              int hi, int from, int to) {
+                              int hi, int from, int to, int origin, SharedComponents shared) {
         RunList seeds = Seeds.known(ws.recurrence, seq, length, runs, lo, hi, settings.maxPeriod());
         QuietPoints quiet = QuietPoints.of(seeds, length);
         // a quiet point must lie far enough inside [lo, hi) that every seed near it is known exactly
@@ -237,14 +256,65 @@ public final class LocusCaller {
             return null;
         }
         CandidateBuilder builder = new CandidateBuilder(seq, background, ws, settings.minCopies() * REJECT_SHARE);
+        if (shared == null) {
+            return loci(builder, seeds, quiet, q1, q2, from, to);
+        }
+        // a component reaching past [from, to) is solved once for every call that meets it; quiet points
+        // separate components, so the stretch between them is solved on its own
+        int cl = q1 < from ? quiet.componentAt(from) : -1;
+        int cr = q2 > to ? quiet.componentAt(to) : -1;
+        List<Locus> out = new ArrayList<>();
+        int m1 = q1;
+        int m2 = q2;
+        if (cl >= 0) {
+            out.addAll(component(shared, builder, seeds, quiet, cl, from, to, origin));
+            m1 = quiet.end(cl);
+        }
+        if (cr >= 0 && cr != cl) {
+            m2 = quiet.start(cr);
+        }
+        if (m1 < m2) {
+            out.addAll(loci(builder, seeds, quiet, m1, m2, from, to));
+        }
+        if (cr >= 0 && cr != cl) {
+            out.addAll(component(shared, builder, seeds, quiet, cr, from, to, origin));
+        }
+        return out;
+    }
+
+    /** The loci of component {@code c} that start in {@code [from, to)}, solved once through {@code shared}. */
+    private List<Locus> component(SharedComponents shared, CandidateBuilder builder, RunList seeds, QuietPoints quiet,
+                                  int c, int from, int to, int origin) {
+        int cs = quiet.start(c);
+        int ce = quiet.end(c);
+        List<Locus> all = shared.solve(cs + origin, ce + origin, () -> {
+            List<Locus> loci = loci(builder, seeds, quiet, cs, ce, cs, ce);
+            List<Locus> shifted = new ArrayList<>(loci.size());
+            for (Locus l : loci) {
+                shifted.add(origin == 0 ? l : l.shifted(origin));
+            }
+            return shifted;
+        });
+        return SharedComponents.startingIn(all, from + origin, to + origin, origin);
+    }
+
+    /** The loci starting in {@code [from, to)} of the seeds between the quiet points {@code q1} and {@code q2}. */
+    private List<Locus> loci(CandidateBuilder builder, RunList seeds, QuietPoints quiet, int q1, int q2, int from,
+                             int to) {
         List<Candidate> cands = candidates(builder, seeds, quiet, q1, q2);
         List<Candidate> won = Competition.resolve(cands, (k, g0, g1) -> trimmed(builder, k, g0, g1));
         won = ArrayJoin.join(builder, filter, quiet, won);
         List<Locus> out = new ArrayList<>();
+        byte[] seq = builder.seq();
         for (int i = 0; i < won.size(); i++) {
             Candidate k = won.get(i);
             if (k.start >= from && k.start < to) {
-                int stop = i + 1 < won.size() ? won.get(i + 1).start : quiet.end(quiet.componentAt(k.start));
+                // a locus' nested structure is looked for within its component: the same whichever stretch
+                // around it a call solves
+                int stop = quiet.end(quiet.componentAt(k.start));
+                if (i + 1 < won.size()) {
+                    stop = Math.min(stop, won.get(i + 1).start);
+                }
                 out.add(NestedUnits.of(builder, filter, settings.maxPeriod(), k, stop - k.start).toLocus(seq, filter.calibration()));
             }
         }
@@ -302,7 +372,7 @@ public final class LocusCaller {
             return null;
         }
         // the stretch votes on its own consensus: the loser's was shaped by the copies it lost
-        Candidate r = builder.settle(g0, k.motif, k.phaseAt[g0 - k.start], g1 - g0);
+        Candidate r = builder.settle(g0, k.motif, k.phases.at(g0 - k.start), g1 - g0);
         return r != null && filter.accepts(r) ? r : null;
     }
 }

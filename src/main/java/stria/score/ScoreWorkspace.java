@@ -7,11 +7,21 @@ package stria.score;
  */
 public final class ScoreWorkspace {
     /** Extends rightwards and holds the path that is tallied or measured. */
-    final WrapAligner right = new WrapAligner();
+    final WrapAligner right;
     /** The left end of a candidate is found while the right end's path is still wanted. */
-    final WrapAligner left = new WrapAligner();
+    final WrapAligner left;
     final VoteTally tally = new VoteTally();
     final RecurrenceSeeds recurrence = new RecurrenceSeeds();
     /** The sides ({@link LocusCaller#LEFT}, {@link LocusCaller#RIGHT}) the last failed solve lacked a quiet point on. */
     int unsolvedSides;
+
+    public ScoreWorkspace() {
+        this(WrapAligner.SEGMENT_ROWS, WrapAligner.TEMPLATE_ROLL);
+    }
+
+    /** Aligners that keep {@code segmentRows} rows of traceback and unroll {@code templateRoll} letters. */
+    ScoreWorkspace(int segmentRows, int templateRoll) {
+        right = new WrapAligner(segmentRows, templateRoll);
+        left = new WrapAligner(segmentRows, templateRoll);
+    }
 }

@@ -41,12 +41,12 @@ final class VoteTally {
      * at {@code seq[pos0 + dir * (i - 1)]} and template letter {@code j} (from 1) as
      * {@code motif[mod(phase + dir * (j - 1), p)]}. Columns within the first {@code skip} text bases or
      * template letters do not vote (the copy a motif was read from would outvote a few others on its own
-     * errors). An insertion of several bases is one vote for its boundary. When {@code phaseAt} is not
-     * null it receives the phase of every text base ({@code phaseAt[i - 1]}, an inserted base taking the
+     * errors). An insertion of several bases is one vote for its boundary. When {@code phases} is not
+     * null it receives the phase of every text base (at offset {@code i - 1}, an inserted base taking the
      * phase it precedes).
      */
     PathCounts addPath(WrapAligner path, byte[] seq, int pos0, int dir, byte[] motif, int phase, int skip,
-                       int[] phaseAt) {
+                       PhaseMap.Builder phases) {
         int p = motif.length;
         int[] cnt = counts;
         int matches = 0;
@@ -73,8 +73,8 @@ final class VoteTally {
             if (op == WrapAligner.DIAG) {
                 int x = Bases.code(seq[pos0 + dir * (i - 1)]);
                 cnt[SLOTS * ph + x]++;
-                if (phaseAt != null) {
-                    phaseAt[i - 1] = ph;
+                if (phases != null) {
+                    phases.add(i - 1, ph);
                 }
                 if (motif[ph] == x) {
                     matches++;
@@ -84,8 +84,8 @@ final class VoteTally {
             } else if (op == WrapAligner.INS) {
                 // the base sits before the next letter in contig order: j + 1 reading rightwards, j leftwards
                 int at = dir < 0 ? ph : ph == p - 1 ? 0 : ph + 1;
-                if (phaseAt != null) {
-                    phaseAt[i - 1] = at;
+                if (phases != null) {
+                    phases.add(i - 1, at);
                 }
                 insertions++;
                 cnt[SLOTS * at + INSERTED_BASES]++;

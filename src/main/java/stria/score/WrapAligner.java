@@ -15,11 +15,22 @@ import stria.io.Bases;
  * After {@link #extend} the path to the best cell can be walked column by column ({@link #beginPath},
  * {@link #nextColumn}). Columns are scored by a {@link ScoringModel} (log-odds in tenths of a bit), the
  * same model that scores the reported locus.
+ *
+ * <p>Memory does not grow with the length of an extension. The traceback is kept for one segment of
+ * {@link #SEGMENT_ROWS} rows at a time, with a checkpoint (the band of scores, its position and its best
+ * cell) at the start of every segment: the walk back recomputes each earlier segment from its checkpoint,
+ * row for row as the extension computed it, so the path is the same as with the whole trace kept, for
+ * about twice the work on extensions longer than one segment. The template is unrolled once over a
+ * bounded length and read at an offset that moves on by whole periods.
  */
 public final class WrapAligner {
     /** Half-width of the band: net drift tolerated between two rows is far smaller. */
     static final int HALF = 6;
     static final int BAND = 2 * HALF + 1;
+    /** Rows of traceback held at a time: 512 KB of trace and band starts. */
+    static final int SEGMENT_ROWS = 1 << 16;
+    /** Template letters unrolled before the template is read at a moving offset instead of grown. */
+    static final int TEMPLATE_ROLL = 1 << 12;
     private static final int NEG = Integer.MIN_VALUE / 4;
     // traceback codes
     static final byte DIAG = 0, INS = 1, DEL = 2, START = 3;
@@ -33,21 +44,57 @@ public final class WrapAligner {
         Arrays.fill(prev, NEG);
         Arrays.fill(cur, NEG);
     }
-    // the ops of a row, two bits per band cell: one store per row instead of one per cell
+    // the ops of a row, two bits per band cell: one store per row instead of one per cell; slot r holds
+    // row base + r of the segment in the buffer
     private int[] trace = new int[1024];
     private static final int START_ROW = (1 << (2 * BAND)) - 1;
     private int[] rowLo = new int[1024];
-    // the template unrolled as scores: tscore[t][x] is the score of text base t against template letter x
-    // (letter 0 unused), grown on demand; one load per cell instead of a comparison and a select
+    private final int segmentRows;
+    private final int templateRoll;
+    private int base;
+    private int bufRows;
+    // per segment g >= 1: the band of row g * segmentRows - 1, its first template letter and its best cell
+    private static final int CHECKPOINT = BAND + 2;
+    private int[] checkpoints = new int[0];
+    // the template as scores: tscore[t][x - tbase] is the score of text base t against template letter x
+    // (letter tbase unused), tbase a multiple of the period; one load per cell instead of a comparison
+    // and a select
     private byte[][] tscore = new byte[4][1024];
     private int tmplLen;
+    private int tbase;
     private ScoringModel model;
+    // the inputs of the last extend, which a segment is recomputed from
+    private byte[] seq;
+    private int pos0;
+    private int dir;
+    private byte[] motif;
+    private int p;
+    private int phase;
+    // the band of the last row computed: its first template letter and the offset of its best cell
+    private int lo;
+    private int bestK;
 
     // result of the last extend
     private int bestI;
     private int bestJ;
     private int bestScore;
     private int rows;
+
+    public WrapAligner() {
+        this(SEGMENT_ROWS, TEMPLATE_ROLL);
+    }
+
+    /**
+     * An aligner that holds the traceback of {@code segmentRows} rows at a time and unrolls at least
+     * {@code templateRoll} template letters (tests use short ones; any values give the same alignments).
+     */
+    WrapAligner(int segmentRows, int templateRoll) {
+        if (segmentRows < 2 || templateRoll < 1) {
+            throw new IllegalArgumentException("segment of " + segmentRows + " rows, template of " + templateRoll);
+        }
+        this.segmentRows = segmentRows;
+        this.templateRoll = templateRoll;
+    }
 
     /** Text rows consumed by the best alignment. */
     public int bestI() {
@@ -70,7 +117,7 @@ public final class WrapAligner {
 
     /** Template letter of the first cell of the band of text row {@code i} (1..{@link #rows}). */
     int bandStart(int i) {
-        return rowLo[i];
+        return rowLo[slot(i)];
     }
 
     /**
@@ -82,44 +129,87 @@ public final class WrapAligner {
     public void extend(ScoringModel model, byte[] seq, int pos0, int dir, byte[] motif, int p, int phase, int cap,
                        int xdrop) {
         this.model = model;
+        this.seq = seq;
+        this.pos0 = pos0;
+        this.dir = dir;
+        this.motif = motif;
+        this.p = p;
+        this.phase = phase;
+        tmplLen = 0;
+        tbase = 0;
+        origin();
+        rows = 0;
+        bestI = 0;
+        bestJ = 0;
+        bestScore = 0;
+        compute(1, cap, xdrop, true);
+        bufRows = rows - base + 1;
+    }
+
+    /** The state before the first text row: only the anchor cell is reached. */
+    private void origin() {
+        Arrays.fill(prev, PAD, PAD + BAND, NEG);
+        prev[PAD] = 0;
+        base = 0;
+        rowLo[0] = 0;
+        trace[0] = START_ROW;
+        lo = 0;
+        bestK = 0;
+    }
+
+    /**
+     * Rows {@code from..to} from the band of row {@code from - 1} (in {@code prev}, {@link #lo},
+     * {@link #bestK}). The extension ({@code extend}) also keeps the best cell, stops by X-drop and leaves a
+     * checkpoint where a segment begins; a recomputation only fills the trace of the segment in the buffer.
+     */
+    private void compute(int from, int to, int xdrop, boolean extend) {
         int insScore = model.insertion();
         int delScore = model.deletion();
         // rows live in padded arrays so that cells outside the band, and column -1, read as unreachable;
-        // the pads are never written, so only the band of the first row needs resetting
+        // the pads are never written
         int[] prev = this.prev;
         int[] cur = this.cur;
-        Arrays.fill(prev, PAD, PAD + BAND, NEG);
-        prev[PAD] = 0;
-        rowLo[0] = 0;
         int[] trace = this.trace;
-        trace[0] = START_ROW;
-        int lo = 0;
-        int prevBestK = 0;
-        tmplLen = 0;
-        int bestI = 0;
-        int bestJ = 0;
-        int bestScore = 0;
-        int floor = -xdrop;
-        int pos = pos0;
-        int rows = 0;
-        for (int i = 1; i <= cap; i++, pos += dir) {
+        int[] rowLo = this.rowLo;
+        byte[] seq = this.seq;
+        int lo = this.lo;
+        int prevBestK = this.bestK;
+        int base = this.base;
+        int bestI = this.bestI;
+        int bestJ = this.bestJ;
+        int bestScore = this.bestScore;
+        int floor = bestScore - xdrop;
+        int pos = pos0 + dir * (from - 1);
+        int rows = this.rows;
+        for (int i = from; i <= to; i++, pos += dir) {
             int t = Bases.code(seq[pos]);
             if (t < 0 || t > 3) {
                 break;
+            }
+            int slot = i - base;
+            if (slot == segmentRows) {
+                // row i begins a segment: keep what computing it again needs
+                checkpoint(i / segmentRows, prev, lo, prevBestK);
+                base = i;
+                slot = 0;
             }
             // centre the band on the best cell of the row above, one template letter further on
             int prevLo = lo;
             lo = Math.max(0, prevLo + prevBestK + 1 - HALF);
             int shift = lo - prevLo + PAD;
-            if (i >= rowLo.length) {
-                ensureRows(i + 1);
+            if (slot >= rowLo.length) {
+                ensureRows(slot + 1);
                 trace = this.trace;
+                rowLo = this.rowLo;
             }
-            rowLo[i] = lo;
+            rowLo[slot] = lo;
             int rowMax = NEG;
             int rowMaxK = 0;
-            if (lo + BAND > tmplLen) {
-                unroll(motif, p, phase, dir, lo + BAND);
+            int x0 = lo - tbase;
+            // the band may also move back, below a template read at an offset
+            if (x0 + BAND > tmplLen || x0 < 1 && tbase > 0) {
+                template(lo);
+                x0 = lo - tbase;
             }
             byte[] sc = tscore[t];
             int left = NEG;
@@ -132,7 +222,7 @@ public final class WrapAligner {
                 // in random sequence every comparison below goes either way at random, so they are written
                 // as selects rather than branches; ties keep the same order of preference (diagonal, then
                 // insertion, then deletion) and the first best cell of the row
-                int best = diag + sc[lo + k];
+                int best = diag + sc[x0 + k];
                 int ins = up + insScore;
                 int op = ins > best ? INS : DIAG;
                 best = Math.max(best, ins);
@@ -146,28 +236,75 @@ public final class WrapAligner {
                 rowMaxK = best > rowMax ? k : rowMaxK;
                 rowMax = Math.max(rowMax, best);
             }
-            trace[i] = ops;
-            rows = i;
+            trace[slot] = ops;
             int[] sw = prev;
             prev = cur;
             cur = sw;
             prevBestK = rowMaxK;
-            if (rowMax > bestScore) {
-                bestScore = rowMax;
-                bestI = i;
-                bestJ = lo + rowMaxK;
-                floor = rowMax - xdrop;
-            }
-            if (rowMax < floor) {
-                break;
+            if (extend) {
+                rows = i;
+                if (rowMax > bestScore) {
+                    bestScore = rowMax;
+                    bestI = i;
+                    bestJ = lo + rowMaxK;
+                    floor = rowMax - xdrop;
+                }
+                if (rowMax < floor) {
+                    break;
+                }
             }
         }
         this.prev = prev;
         this.cur = cur;
-        this.bestI = bestI;
-        this.bestJ = bestJ;
-        this.bestScore = bestScore;
-        this.rows = rows;
+        this.lo = lo;
+        this.bestK = prevBestK;
+        this.base = base;
+        if (extend) {
+            this.bestI = bestI;
+            this.bestJ = bestJ;
+            this.bestScore = bestScore;
+            this.rows = rows;
+        }
+    }
+
+    /** Keeps the band before the first row of segment {@code g}. */
+    private void checkpoint(int g, int[] band, int lo, int bestK) {
+        int at = (g - 1) * CHECKPOINT;
+        if (at + CHECKPOINT > checkpoints.length) {
+            checkpoints = Arrays.copyOf(checkpoints, Math.max(at + CHECKPOINT, 2 * checkpoints.length));
+        }
+        System.arraycopy(band, PAD, checkpoints, at, BAND);
+        checkpoints[at + BAND] = lo;
+        checkpoints[at + BAND + 1] = bestK;
+    }
+
+    /** The buffer slot of text row {@code i}, after computing its segment again when another is held. */
+    private int slot(int i) {
+        int slot = i - base;
+        if (slot < 0 || slot >= bufRows) {
+            load(i / segmentRows);
+            slot = i - base;
+        }
+        return slot;
+    }
+
+    /** Computes the trace of segment {@code g} of the last extend again, from its checkpoint. */
+    private void load(int g) {
+        int first;
+        if (g == 0) {
+            origin();
+            first = 1;
+        } else {
+            int at = (g - 1) * CHECKPOINT;
+            System.arraycopy(checkpoints, at, prev, PAD, BAND);
+            lo = checkpoints[at + BAND];
+            bestK = checkpoints[at + BAND + 1];
+            base = g * segmentRows;
+            first = base;
+        }
+        int last = Math.min(rows, (g + 1) * segmentRows - 1);
+        compute(first, last, 0, false);
+        bufRows = last - base + 1;
     }
 
     // the walk along the best path: the cell reached so far, and the column last returned
@@ -193,8 +330,9 @@ public final class WrapAligner {
         if (i == 0 && j == 0) {
             return -1;
         }
-        int k = j - rowLo[i];
-        int op = (k >= 0 && k < BAND) ? (trace[i] >>> (2 * k)) & 3 : START;
+        int slot = slot(i);
+        int k = j - rowLo[slot];
+        int op = (k >= 0 && k < BAND) ? (trace[slot] >>> (2 * k)) & 3 : START;
         colJ = j;
         if (op == DIAG) {
             colI = i;
@@ -213,6 +351,18 @@ public final class WrapAligner {
             op = DEL;
         }
         return op;
+    }
+
+    /**
+     * Makes the template cover letters {@code lo .. lo + BAND - 1}: unrolled further while it is short, else
+     * read from the whole period at or before {@code lo} (the letters repeat with the period).
+     */
+    private void template(int lo) {
+        if (tmplLen >= Math.max(templateRoll, p + BAND + 1)) {
+            tbase = (lo - 1) / p * p;
+        } else {
+            unroll(motif, p, phase, dir, lo - tbase + BAND);
+        }
     }
 
     private void unroll(byte[] motif, int p, int phase, int dir, int need) {
@@ -264,7 +414,7 @@ public final class WrapAligner {
 
     private void ensureRows(int rows) {
         if (rows > rowLo.length) {
-            int n = Math.max(rows, rowLo.length * 2);
+            int n = Math.min(segmentRows, Math.max(rows, rowLo.length * 2));
             rowLo = Arrays.copyOf(rowLo, n);
             trace = Arrays.copyOf(trace, n);
         }

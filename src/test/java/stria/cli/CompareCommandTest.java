@@ -13,6 +13,7 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import stria.compare.CompareRow;
 import stria.sim.AssemblyPairSimulator;
 import stria.sim.GenomeSimulator;
 import stria.testutil.Cli;
@@ -150,6 +151,29 @@ class CompareCommandTest {
         // an incomplete set is refused and leaves nothing
         Path bad = dir.resolve("bad.tsv");
         assertThat(run("merge", "--tsv", bad.toString(), parts.get(0), parts.get(1))).isEqualTo(1);
+        assertThat(bad).doesNotExist();
+
+        // a part ends with the closing line over its rows; one cut short or edited is refused by name
+        List<String> part1 = Files.readAllLines(Path.of(parts.get(0)));
+        assertThat(part1.get(part1.size() - 1)).matches("#end: loci=\\d+ sha256=[0-9a-f]{16}");
+        long rowsOfPart1 = part1.stream().filter(l -> !l.startsWith("#")).count() - 1;
+        assertThat(part1.get(part1.size() - 1)).startsWith("#end: loci=" + rowsOfPart1 + " ");
+        Path cut = dir.resolve("cut.tsv");
+        Files.write(cut, part1.subList(0, part1.size() - 2));
+        Cli.Result r = Cli.stria(dir, "merge", "--tsv", bad.toString(), cut.toString(), parts.get(1), parts.get(2));
+        assertThat(r.exit()).isEqualTo(1);
+        assertThat(r.err()).contains("cut.tsv is incomplete");
+        List<String> edited = new ArrayList<>(part1);
+        int row = edited.indexOf(CompareRow.HEADER) + 1;
+        assertThat(edited.get(row)).doesNotStartWith("#");
+        String[] f = edited.get(row).split("\t", -1);
+        f[10] = f[10].equals("changed") ? "same" : "changed"; // the status column, as a hand edit would
+        edited.set(row, String.join("\t", f));
+        Path damaged = dir.resolve("damaged.tsv");
+        Files.write(damaged, edited);
+        r = Cli.stria(dir, "merge", "--tsv", bad.toString(), damaged.toString(), parts.get(1), parts.get(2));
+        assertThat(r.exit()).isEqualTo(1);
+        assertThat(r.err()).contains("damaged.tsv is damaged");
         assertThat(bad).doesNotExist();
     }
 

@@ -280,6 +280,11 @@ class InputErrorsTest {
                     Files.move(t.dir.resolve("other.fa.gz.gzi"), t.dir.resolve("g.fa.gz.gzi"));
                     return p;
                 }, List.of("g.fa.gz.gzi does not match")),
+                Arguments.of("lines that end with a carriage return alone", (Maker) t -> t.write("cr.fa",
+                        bytes(CLEAN.replace("\n", "\r"))), List.of("line 1", "carriage return not followed")),
+                // 0xFF never occurs in UTF-8 (RFC 3629, section 1)
+                Arguments.of("record name that is not UTF-8", (Maker) t -> t.write("latin.fa",
+                        bytes(CLEAN.replaceFirst(">contig2", ">contig\u00ff2"))), List.of("not valid UTF-8")),
                 Arguments.of("duplicate record names", (Maker) t -> t.write("dup.fa",
                         bytes(CLEAN + ">contig2 again\nACGTACGT\n")), List.of("duplicate record name contig2")),
                 Arguments.of("non-IUPAC letter", (Maker) t -> t.write("bad.fa",
@@ -354,6 +359,7 @@ class InputErrorsTest {
                 Arguments.of(List.of("--shard", "1/0"), "--shard"),
                 Arguments.of(List.of("--shard", "x"), "--shard"),
                 Arguments.of(List.of("--threads", "0"), "--threads"),
+                Arguments.of(List.of("-", "-"), "standard input (-) is given more than once"),
                 Arguments.of(List.of("--region", "contig1:0-10"), "--region"),
                 Arguments.of(List.of("--region", "contig1:50-10"), "--region"));
     }

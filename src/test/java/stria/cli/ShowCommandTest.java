@@ -78,12 +78,29 @@ class ShowCommandTest {
     void longUnitsWrapAndHtmlMarksTheEdits() throws Exception {
         String unit = random(150, 3);
         String mutated = unit.substring(0, 70) + (unit.charAt(70) == 'A' ? 'C' : 'A') + unit.substring(71);
-        Files.writeString(dir.resolve("s.fa"), ">s\n" + random(200, 4) + unit + unit + mutated + unit
-                + random(200, 5) + "\n");
+        String genome = random(200, 4) + unit + unit + mutated + unit + random(200, 5);
+        Files.writeString(dir.resolve("s.fa"), ">s\n" + genome + "\n");
         Cli.Result r = Cli.stria(dir, "show", "--region", "s:190-210", "s.fa");
         assertThat(r.exit()).as(r.err()).isZero();
         assertThat(r.out().lines()).allSatisfy(l -> assertThat(l.length()).isLessThanOrEqualTo(100));
         assertThat(r.out().lines().filter(l -> l.trim().startsWith("consensus")).count()).isGreaterThan(1);
+        // in every block, a copy's label is the genome position of its first letter there
+        int checked = 0;
+        for (String l : r.out().lines().toList()) {
+            java.util.regex.Matcher m = java.util.regex.Pattern.compile("^ *([0-9,]+)  (.*)$").matcher(l);
+            if (m.matches()) {
+                int pos = Integer.parseInt(m.group(1).replace(",", ""));
+                String drawn = m.group(2).replaceAll("[^A-Za-z]", "");
+                assertThat(m.group(2)).as(l).isNotBlank();
+                if (drawn.isEmpty()) {
+                    continue; // only deletions in this block
+                }
+                assertThat(Character.toUpperCase(drawn.charAt(0))).as(l).isEqualTo(genome.charAt(pos - 1));
+                assertThat(drawn.toUpperCase()).as(l).isEqualTo(genome.substring(pos - 1, pos - 1 + drawn.length()));
+                checked++;
+            }
+        }
+        assertThat(checked).isGreaterThanOrEqualTo(8);
         r = Cli.stria(dir, "show", "--region", "s:190-210", "--html", "v.html", "s.fa");
         assertThat(r.exit()).as(r.err()).isZero();
         String html = Files.readString(dir.resolve("v.html"));

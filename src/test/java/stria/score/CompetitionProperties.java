@@ -19,7 +19,7 @@ class CompetitionProperties {
 
     static Candidate candidate(int start, int length, int period, int score) {
         return new Candidate(start, new byte[period], 0, score, ScoringModel.uniform(), new VoteTally.PathCounts(length, 0, 0, 0),
-                new int[length]);
+                PhaseMap.steady(period, length, 0));
     }
 
     private static List<Candidate> randomSet(Random r, int n, int span) {

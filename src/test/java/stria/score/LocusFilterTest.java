@@ -35,9 +35,9 @@ class LocusFilterTest {
     @Test
     void aCandidateIsJudgedByItsAlignment() {
         // 20 bases of period 4: 16 matches of 20 columns is purity 0.8
-        Candidate k = new Candidate(100, new byte[4], 0, 31, ScoringModel.uniform(), new VoteTally.PathCounts(16, 2, 1, 1), new int[20]);
+        Candidate k = new Candidate(100, new byte[4], 0, 31, ScoringModel.uniform(), new VoteTally.PathCounts(16, 2, 1, 1), PhaseMap.steady(4, 20, 0));
         assertThat(F.accepts(k)).isTrue();
-        Candidate weak = new Candidate(100, new byte[4], 0, 31, ScoringModel.uniform(), new VoteTally.PathCounts(13, 5, 1, 1), new int[20]);
+        Candidate weak = new Candidate(100, new byte[4], 0, 31, ScoringModel.uniform(), new VoteTally.PathCounts(13, 5, 1, 1), PhaseMap.steady(4, 20, 0));
         assertThat(F.accepts(weak)).isFalse();
     }
 

@@ -26,7 +26,16 @@ class VoteTallyTest {
         assertThat(a.bestI()).isEqualTo(seq.length);
         VoteTally t = new VoteTally();
         t.clear(3);
-        VoteTally.PathCounts c = t.addPath(a, seq, 0, 1, CAG, 0, skip, phaseAt);
+        PhaseMap.Builder phases = phaseAt == null ? null : new PhaseMap.Builder(3);
+        VoteTally.PathCounts c = t.addPath(a, seq, 0, 1, CAG, 0, skip, phases);
+        if (phases != null) {
+            PhaseMap map = phases.build(seq.length);
+            PhaseMap.Cursor cursor = map.cursor();
+            for (int i = 0; i < seq.length; i++) {
+                phaseAt[i] = map.at(i);
+                assertThat(cursor.next()).isEqualTo(phaseAt[i]);
+            }
+        }
         if (counts != null) {
             counts[0] = c;
         }

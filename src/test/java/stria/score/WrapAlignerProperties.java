@@ -72,6 +72,64 @@ class WrapAlignerProperties {
         Statistics.label("optimal path inside the band").collect(inBand);
     }
 
+    /**
+     * The traceback kept one segment at a time (recomputed from checkpoints on the walk back) and the
+     * template read at a moving offset give exactly the alignment of the whole trace and the whole template:
+     * the same end, score and rows, and the same path column by column. Segments of 2 to 40 rows and
+     * template rolls down to one letter make every extension cross many segment boundaries and rebases.
+     */
+    @Property(tries = 300)
+    void segmentedTraceIsTheWholeTrace(@ForAll long seed, @ForAll @IntRange(min = 1, max = 40) int p,
+                                       @ForAll @IntRange(min = 0, max = 30) int errorsPercent,
+                                       @ForAll @IntRange(min = 2, max = 40) int segment,
+                                       @ForAll @IntRange(min = 1, max = 64) int roll, @ForAll boolean leftwards) {
+        Random r = new Random(seed);
+        byte[] motif = new byte[p];
+        for (int i = 0; i < p; i++) {
+            motif[i] = (byte) r.nextInt(4);
+        }
+        int phase = r.nextInt(p);
+        int dir = leftwards ? -1 : 1;
+        byte[] reading = text(r, motif, phase, dir, 50 + r.nextInt(1500), errorsPercent, r.nextInt(100));
+        int n0 = reading.length;
+        byte[] seq = new byte[n0];
+        for (int i = 0; i < n0; i++) {
+            seq[dir > 0 ? i : n0 - 1 - i] = reading[i];
+        }
+        int pos0 = dir > 0 ? 0 : n0 - 1;
+        int cap = 1 + r.nextInt(n0);
+        int xdrop = 80 + r.nextInt(640);
+        ScoringModel m = ScoringModel.forClass(r.nextInt(ScoringModel.GC_CLASSES));
+        WrapAligner whole = new WrapAligner();
+        WrapAligner cut = new WrapAligner(segment, roll);
+        // twice on the same aligners: the second extend must not see anything of the first
+        for (int round = 0; round < 2; round++) {
+            whole.extend(m, seq, pos0, dir, motif, p, phase, cap, xdrop);
+            cut.extend(m, seq, pos0, dir, motif, p, phase, cap, xdrop);
+            assertThat(cut.rows()).isEqualTo(whole.rows());
+            assertThat(cut.bestI()).isEqualTo(whole.bestI());
+            assertThat(cut.bestJ()).isEqualTo(whole.bestJ());
+            assertThat(cut.bestScore()).isEqualTo(whole.bestScore());
+            // two walks of one extend: the first leaves the buffer on the first segment
+            for (int walk = 0; walk < 2; walk++) {
+                whole.beginPath();
+                cut.beginPath();
+                int columns = 0;
+                for (int op = whole.nextColumn(); op >= 0; op = whole.nextColumn(), columns++) {
+                    assertThat(cut.nextColumn()).isEqualTo(op);
+                    assertThat(cut.colI).isEqualTo(whole.colI);
+                    assertThat(cut.colJ).isEqualTo(whole.colJ);
+                }
+                assertThat(cut.nextColumn()).isEqualTo(-1);
+                Statistics.label("segments crossed").collect(Math.min(columns / segment, 10));
+            }
+            for (int i = 1; i <= whole.rows(); i += 1 + r.nextInt(50)) {
+                assertThat(cut.bandStart(i)).isEqualTo(whole.bandStart(i));
+            }
+            cap = 1 + r.nextInt(n0);
+        }
+    }
+
     /** An error burst early: the best path leaves the diagonal by several bases at once. */
     @Example
     void aLongInsertionNearTheAnchor() {
