@@ -39,6 +39,11 @@ final class ExactMode implements ScanMode {
     }
 
     @Override
+    public int enginePeriod() {
+        return filters.maxPeriod();
+    }
+
+    @Override
     public int readPad() {
         return 0;
     }

@@ -99,7 +99,7 @@ public final class GenomeScan {
         Semaphore permits = new Semaphore(2 * threads + 4);
         BlockingQueue<Queued> queue = new ArrayBlockingQueue<>(2 * threads + 4);
         Stores stores = new Stores();
-        WindowRunner runner = new WindowRunner(pool, settings.filters().maxPeriod(), mode::keep);
+        WindowRunner runner = new WindowRunner(pool, mode.enginePeriod(), mode::keep);
         Thread reader = new Thread(() -> produce(units, runner, permits, queue, stores), "stria-reader");
         reader.setDaemon(true);
         reader.start();

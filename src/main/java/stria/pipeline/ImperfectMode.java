@@ -42,6 +42,11 @@ final class ImperfectMode implements ScanMode {
     }
 
     @Override
+    public int enginePeriod() {
+        return caller.seedPeriod();
+    }
+
+    @Override
     public int readPad() {
         return caller.readPad();
     }

@@ -21,6 +21,12 @@ sealed interface ScanMode permits ExactMode, ImperfectMode {
     /** Whether a window keeps a complete run (runs touching a window end are always kept, for stitching). */
     boolean keep(int start, int end, int period);
 
+    /**
+     * The longest period the engine looks for: runs of longer period are never used by this mode, and the
+     * engine skips the deeper LCP intervals when it need not report them.
+     */
+    int enginePeriod();
+
     /** Bases read beyond the context of a unit that is not a whole contig, on each side. */
     int readPad();
 

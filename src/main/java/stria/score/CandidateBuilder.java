@@ -21,9 +21,20 @@ final class CandidateBuilder {
     private final WrapAligner right;
     private final WrapAligner left;
     private final VoteTally tally;
+    private final double rejectCopies;
+    /**
+     * Where the first extension of the last {@link #build} reached when it rejected the seed for falling
+     * short of {@code rejectCopies} copies; an empty stretch after any other outcome.
+     */
+    int reachStart;
+    int reachEnd;
 
-    /** @param background the composition at every position of {@code seq} */
-    CandidateBuilder(byte[] seq, Background background, ScoreWorkspace ws) {
+    /**
+     * @param background   the composition at every position of {@code seq}
+     * @param rejectCopies copies the first extension of a seed must reach for the seed to be built on
+     */
+    CandidateBuilder(byte[] seq, Background background, ScoreWorkspace ws, double rejectCopies) {
+        this.rejectCopies = rejectCopies;
         this.seq = seq;
         this.background = background;
         this.right = ws.right;
@@ -47,9 +58,13 @@ final class CandidateBuilder {
     /**
      * The candidate seeded by period {@code p} at {@code s}, extended no further than {@code [cs, ce)} (the
      * seed's component of reaches), or null when its first copy holds a letter other than ACGT, the
-     * extension is no longer than a copy and {@link LocusCaller#SEED_EXTRA} bases, or no consensus is left.
+     * extension is no longer than a copy and {@link LocusCaller#SEED_EXTRA} bases or shorter than
+     * {@code rejectCopies} copies ({@link #reachStart} and {@link #reachEnd} then say how far it reached), or
+     * no consensus is left.
      */
     Candidate build(int s, int p, int cs, int ce) {
+        reachStart = s;
+        reachEnd = s;
         byte[] m0 = new byte[p];
         for (int k = 0; k < p; k++) {
             int code = Bases.code(seq[s + k]);
@@ -64,20 +79,33 @@ final class CandidateBuilder {
         // the provisional consensus is voted on the first copies only; the final one on the whole locus.
         // Both ends are found before any vote is counted: most candidates fail the length test and their
         // paths are never walked
-        right.extend(model, seq, s, 1, m0, p, 0, Math.min(ce - s, VOTE_COPIES * p + 64), xd);
         left.extend(model, seq, s - 1, -1, m0, p, p - 1, s - cs, xd);
         int leftLen = left.bestI();
-        if (leftLen + right.bestI() < p + LocusCaller.SEED_EXTRA) {
+        // the seed copy aligns with itself: the right end is found by aligning the bases after it against
+        // the motif from its first letter, which for a long unit that does not recur is a fraction of the work
+        int rightCap = Math.max(0, Math.min(ce - s, VOTE_COPIES * p + 64) - p);
+        right.extend(model, seq, s + p, 1, m0, p, 0, rightCap, xd);
+        int reach = leftLen + p + right.bestI();
+        if (reach < p + LocusCaller.SEED_EXTRA) {
             return null;
         }
+        if (reach < rejectCopies * p) {
+            return rejected(s - leftLen, s + p + right.bestI());
+        }
         tally.clear(p);
-        // the seed copy, which the motif was read from, does not vote
-        tally.addPath(right, seq, s, 1, m0, 0, p, null);
+        // the seed copy, which the motif was read from, does not vote (nor is it on the right path)
+        tally.addPath(right, seq, s + p, 1, m0, 0, 0, null);
         tally.addPath(left, seq, s - 1, -1, m0, p - 1, 0, null);
         int a = s - leftLen;
         int phaseA = leftLen == 0 ? 0 : Math.floorMod(p - left.bestJ(), p);
         Consensus c = Consensus.of(tally.counts(), m0, phaseA);
         return c == null ? null : settle(a, c.motif(), c.phase(), ce - a);
+    }
+
+    private Candidate rejected(int start, int end) {
+        reachStart = start;
+        reachEnd = end;
+        return null;
     }
 
     /**

@@ -29,7 +29,10 @@ import stria.repeats.RunList;
  * first copy, and a seed already inside a locus of its period (or, for recurrence seeds, of a period its
  * distance is about a multiple of) adds nothing ({@link SeedCoverage}). Otherwise its first copy is the provisional motif and the locus is
  * extended both ways by aligning against the repeated motif ({@link WrapAligner}: wraparound dynamic
- * programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop). The
+ * programming, Fischetti, Landau, Sellers &amp; Schmidt 1993, in an adaptive band with X-drop). A seed
+ * whose extension reaches less than {@link #REJECT_SHARE} of the copies a locus needs is dropped there
+ * (the bases after its first copy are aligned first, so a long unit that does not recur costs little),
+ * and what it reached counts as explained for its period. The
  * copies other than the seed's then vote on the consensus ({@link VoteTally}, {@link Consensus}): the majority letter at each phase, a phase
  * most copies lack is dropped and a base most copies insert is added, so a seed copy carrying an indel
  * does not fix the period; the result is reduced to its primitive root. A last alignment against the
@@ -72,6 +75,24 @@ public final class LocusCaller {
     public static final int SEED_MAX_PERIOD = 12;
     /** Bases beyond one copy an exact run needs to seed: 6 keeps random DNA to a few seeds per kb. */
     public static final int SEED_EXTRA = 6;
+    /**
+     * Share of the copies a locus needs ({@code --min-copies}) that the first extension of a seed must
+     * reach, or the seed is dropped before its consensus is voted on and realigned. In human DNA most
+     * seeds of long period are the recurrence of a word between two nearby copies of one interspersed
+     * element: one copy and a part, never two.
+     */
+    static final double REJECT_SHARE = 0.75;
+
+    /** Sides of a stretch without a quiet point far enough inside, in {@link ScoreWorkspace#unsolvedSides}. */
+    static final int LEFT = 1;
+    static final int RIGHT = 2;
+
+    /**
+     * The pad around {@code [from, to)} that the last call needed, where the next one starts: in DNA dense in
+     * interspersed repeats quiet points are far apart, and every stretch too short is a recurrence scan
+     * wasted. Only the work depends on it, never the loci, so threads may race on it.
+     */
+    private volatile long padHint;
 
     private final ScoreSettings settings;
     private final LocusFilter filter;
@@ -81,6 +102,7 @@ public final class LocusCaller {
         this.settings = settings;
         this.filter = new LocusFilter(settings);
         this.split = new CompoundSplit(filter, settings.minLength());
+        this.padHint = 4L * minimumContext();
     }
 
     /**
@@ -90,6 +112,11 @@ public final class LocusCaller {
      */
     public boolean isSeed(int start, int end, int period) {
         return Seeds.isExact(start, end, period, settings.maxPeriod());
+    }
+
+    /** The longest period of the runs {@link #isSeed} accepts: the engine need not look further. */
+    public int seedPeriod() {
+        return Math.min(SEED_MAX_PERIOD, settings.maxPeriod());
     }
 
     /** Bases beyond {@code [from, to)} a call may need on each side in the best case (no repeat nearby). */
@@ -151,27 +178,35 @@ public final class LocusCaller {
         if (from >= to) {
             return List.of();
         }
-        // work on a stretch around [from, to) first and widen it only when it holds no quiet point: a
-        // pipeline that scores a long contig in pieces then does not rescan the whole contig per piece
-        long pad = 4L * minimumContext();
+        // work on a stretch around [from, to) first and widen it only when it holds no quiet point, and only
+        // on the side that lacks one: a pipeline that scores a long contig in pieces then does not rescan
+        // the whole contig per piece, nor a side that was fine
+        long padLeft = padHint;
+        long padRight = padLeft;
         byte[] whole = seq.array();
         while (true) {
             List<Locus> known = shared == null ? null : shared.covering(from, to);
             if (known != null) {
                 return known;
             }
-            int a = (int) Math.max(lo, from - pad);
-            int b = (int) Math.min(hi, to + pad);
+            int a = (int) Math.max(lo, from - padLeft);
+            int b = (int) Math.min(hi, to + padRight);
             List<Locus> r = whole != null ? solve(ws, whole, seq.length(), background, seeds, a, b, from, to, 0, shared)
                     : solveSlice(ws, seq, background, seeds, a, b, from, to, shared);
             if (r != null) {
+                padHint = Math.max(4L * minimumContext(), Math.max(padLeft, padRight));
                 return r;
             }
             if (a == lo && b == hi) {
                 throw new NeedMoreContextException("no quiet point within the known runs around [" + from + ", "
                         + to + ") given [" + lo + ", " + hi + ")");
             }
-            pad *= 4;
+            if ((ws.unsolvedSides & LEFT) != 0 || b == hi) {
+                padLeft *= 4;
+            }
+            if ((ws.unsolvedSides & RIGHT) != 0 || a == lo) {
+                padRight *= 4;
+            }
         }
     }
 
@@ -215,10 +250,12 @@ public final class LocusCaller {
         int rmax = QuietPoints.reach(settings.maxPeriod()) + RecurrenceSeeds.K + 1;
         int q1 = quiet.atOrBefore(from);
         int q2 = quiet.atOrAfter(to);
-        if (q1 < (lo == 0 ? 0 : lo + margin() + rmax) || q2 > (hi >= length ? length : hi - margin() - rmax)) {
+        ws.unsolvedSides = (q1 < (lo == 0 ? 0 : lo + margin() + rmax) ? LEFT : 0)
+                | (q2 > (hi >= length ? length : hi - margin() - rmax) ? RIGHT : 0);
+        if (ws.unsolvedSides != 0) {
             return null;
         }
-        CandidateBuilder builder = new CandidateBuilder(seq, background, ws);
+        CandidateBuilder builder = new CandidateBuilder(seq, background, ws, settings.minCopies() * REJECT_SHARE);
         if (shared == null) {
             return loci(builder, seeds, quiet, q1, q2, from, to);
         }
@@ -298,6 +335,9 @@ public final class LocusCaller {
             }
             int c = quiet.componentAt(s);
             Candidate k = builder.build(s, p, quiet.start(c), quiet.end(c));
+            if (k == null && builder.reachEnd > builder.reachStart) {
+                coverage.add(builder.reachStart, builder.reachEnd, p, p);
+            }
             if (k != null) {
                 coverage.add(k, p);
                 if (filter.accepts(k)) {

@@ -12,6 +12,8 @@ public final class ScoreWorkspace {
     final WrapAligner left;
     final VoteTally tally = new VoteTally();
     final RecurrenceSeeds recurrence = new RecurrenceSeeds();
+    /** The sides ({@link LocusCaller#LEFT}, {@link LocusCaller#RIGHT}) the last failed solve lacked a quiet point on. */
+    int unsolvedSides;
 
     public ScoreWorkspace() {
         this(WrapAligner.SEGMENT_ROWS, WrapAligner.TEMPLATE_ROLL);

@@ -1,8 +1,6 @@
 package stria.score;
 
-import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.List;
 
 /**
  * What the candidates built so far explain, so that a seed already inside a locus of its period (or, for
@@ -17,7 +15,9 @@ final class SeedCoverage {
     private final int maxPeriod;
     private final int[] covS;
     private final int[] covE;
-    private final List<Candidate> active = new ArrayList<>();
+    // the candidates of recurrence periods still near the seeds to come: start, end, period
+    private int[] active = new int[3 * 16];
+    private int activeCount;
 
     SeedCoverage(int maxPeriod) {
         this.maxPeriod = maxPeriod;
@@ -28,20 +28,41 @@ final class SeedCoverage {
 
     /** Whether the seed {@code [s, e)} of period p lies in a candidate already built. */
     boolean explains(int s, int e, int p) {
-        if (active.size() > ACTIVE_PRUNE) {
+        if (activeCount > ACTIVE_PRUNE) {
             // every later seed starts at or after this one's first-copy end minus the largest period
             int horizon = s + p - maxPeriod;
-            active.removeIf(k -> k.end <= horizon);
+            int n = 0;
+            for (int i = 0; i < activeCount; i++) {
+                if (active[3 * i + 1] > horizon) {
+                    System.arraycopy(active, 3 * i, active, 3 * n, 3);
+                    n++;
+                }
+            }
+            activeCount = n;
         }
         return covered(s, e, p) || coveredByMultiple(s, e, p);
     }
 
     /** Records a candidate built from a seed of period {@code seedPeriod}. */
     void add(Candidate k, int seedPeriod) {
-        mark(seedPeriod, k);
-        mark(k.period, k);
+        add(k.start, k.end, k.period, seedPeriod);
+    }
+
+    /**
+     * Records the stretch {@code [start, end)} of period {@code period} explained from a seed of period
+     * {@code seedPeriod}: a built candidate, or the reach of one rejected early.
+     */
+    void add(int start, int end, int period, int seedPeriod) {
+        mark(seedPeriod, start, end);
+        mark(period, start, end);
         if (seedPeriod >= RecurrenceSeeds.MIN_PERIOD) {
-            active.add(k);
+            if (3 * activeCount == active.length) {
+                active = Arrays.copyOf(active, 2 * active.length);
+            }
+            active[3 * activeCount] = start;
+            active[3 * activeCount + 1] = end;
+            active[3 * activeCount + 2] = period;
+            activeCount++;
         }
     }
 
@@ -65,27 +86,30 @@ final class SeedCoverage {
         if (d < RecurrenceSeeds.MIN_PERIOD) {
             return false;
         }
-        for (Candidate k : active) {
-            if (k.end <= s) {
+        for (int i = 0; i < activeCount; i++) {
+            int ks = active[3 * i];
+            int ke = active[3 * i + 1];
+            int kp = active[3 * i + 2];
+            if (ke <= s) {
                 continue;
             }
-            int ov = Math.min(e, k.end) - Math.max(s, k.start);
+            int ov = Math.min(e, ke) - Math.max(s, ks);
             if (2 * ov < e - s) {
                 continue;
             }
-            int m = Math.max(1, Math.round(d / (float) k.period));
+            int m = Math.max(1, Math.round(d / (float) kp));
             // copies drift apart by their indels: allow 4 % of the distance
-            if (Math.abs(d - m * k.period) <= 2 + d / 25) {
+            if (Math.abs(d - m * kp) <= 2 + d / 25) {
                 return true;
             }
         }
         return false;
     }
 
-    private void mark(int p, Candidate k) {
-        if (p < covE.length && k.end > covE[p]) {
-            covS[p] = k.start;
-            covE[p] = k.end;
+    private void mark(int p, int start, int end) {
+        if (p < covE.length && end > covE[p]) {
+            covS[p] = start;
+            covE[p] = end;
         }
     }
 }
