@@ -51,15 +51,20 @@ class WrapAlignerProperties {
         return sb.toString().getBytes(java.nio.charset.StandardCharsets.US_ASCII);
     }
 
+    private static byte[] randomMotif(Random r, int p) {
+        byte[] motif = new byte[p];
+        for (int i = 0; i < p; i++) {
+            motif[i] = (byte) r.nextInt(4);
+        }
+        return motif;
+    }
+
     @Property(tries = 400)
     void bandedAgainstFullDynamicProgramming(@ForAll long seed, @ForAll @IntRange(min = 1, max = 14) int p,
                                             @ForAll @IntRange(min = 0, max = 30) int errorsPercent,
                                             @ForAll boolean leftwards) {
         Random r = new Random(seed);
-        byte[] motif = new byte[p];
-        for (int i = 0; i < p; i++) {
-            motif[i] = (byte) r.nextInt(4);
-        }
+        byte[] motif = randomMotif(r, p);
         int phase = r.nextInt(p);
         int dir = leftwards ? -1 : 1;
         byte[] reading = text(r, motif, phase, dir, 20 + r.nextInt(150), errorsPercent, r.nextInt(60));
@@ -84,10 +89,7 @@ class WrapAlignerProperties {
                                        @ForAll @IntRange(min = 2, max = 40) int segment,
                                        @ForAll @IntRange(min = 1, max = 64) int roll, @ForAll boolean leftwards) {
         Random r = new Random(seed);
-        byte[] motif = new byte[p];
-        for (int i = 0; i < p; i++) {
-            motif[i] = (byte) r.nextInt(4);
-        }
+        byte[] motif = randomMotif(r, p);
         int phase = r.nextInt(p);
         int dir = leftwards ? -1 : 1;
         byte[] reading = text(r, motif, phase, dir, 50 + r.nextInt(1500), errorsPercent, r.nextInt(100));
