@@ -211,17 +211,7 @@ public final class CompareMerge {
                 }
             }
         }
-        if (closing == null) {
-            throw new StriaException(p.file + " is incomplete: it does not end with the " + ResultSeal.PREFIX.strip()
-                    + " line that compare --shard writes last (cut short, or emptied); compare part " + p.id
-                    + " again");
-        }
-        String expected = body.closingLine();
-        if (!closing.equals(expected)) {
-            throw new StriaException(p.file + " is damaged: its closing line says "
-                    + closing.substring(ResultSeal.PREFIX.length()) + " but its rows give "
-                    + expected.substring(ResultSeal.PREFIX.length()) + "; compare part " + p.id + " again");
-        }
+        body.check(p.file, closing, "compare --shard", "rows", "compare part " + p.id + " again");
     }
 
     private static long[] newKey(String file, String line, Map<String, Integer> bRank) {

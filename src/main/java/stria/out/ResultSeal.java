@@ -6,6 +6,7 @@ import java.security.NoSuchAlgorithmException;
 import java.util.HexFormat;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import stria.StriaException;
 
 /**
  * The closing line of a shard's result, written last: {@code #end: loci=N sha256=H}, the number of data
@@ -49,6 +50,27 @@ public final class ResultSeal {
     /** The closing line for the data added so far (ends the digest: call once). */
     public String closingLine() {
         return PREFIX + "loci=" + lines + " sha256=" + HexFormat.of().formatHex(digest.digest()).substring(0, 16);
+    }
+
+    /**
+     * Refuses {@code file} when its {@code closing} line (null: none was found) is missing or disagrees with
+     * the data added here, in one line that says who writes the line and what to do.
+     *
+     * @param writer the command that writes the closing line, e.g. {@code scan --shard}
+     * @param items what the data lines are, e.g. {@code loci}
+     * @param again what to run again, e.g. {@code scan shard 2/3 again}
+     */
+    public void check(String file, String closing, String writer, String items, String again) {
+        if (closing == null) {
+            throw new StriaException(file + " is incomplete: it does not end with the " + PREFIX.strip()
+                    + " line that " + writer + " writes last (cut short, or emptied); " + again);
+        }
+        String expected = closingLine();
+        if (!closing.equals(expected)) {
+            throw new StriaException(file + " is damaged: its closing line says "
+                    + closing.substring(PREFIX.length()) + " but its " + items + " give "
+                    + expected.substring(PREFIX.length()) + "; " + again);
+        }
     }
 
     /** Whether {@code line} is a well-formed closing line. */

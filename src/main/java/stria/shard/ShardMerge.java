@@ -288,16 +288,7 @@ public final class ShardMerge {
                 }
             }
         }
-        if (closing == null) {
-            throw new StriaException(p.file + " is incomplete: it does not end with the " + ResultSeal.PREFIX.strip()
-                    + " line that scan --shard writes last (cut short, or emptied); scan shard " + p.id + " again");
-        }
-        String expected = body.closingLine();
-        if (!closing.equals(expected)) {
-            throw new StriaException(p.file + " is damaged: its closing line says "
-                    + closing.substring(ResultSeal.PREFIX.length()) + " but its loci give "
-                    + expected.substring(ResultSeal.PREFIX.length()) + "; scan shard " + p.id + " again");
-        }
+        body.check(p.file, closing, "scan --shard", "loci", "scan shard " + p.id + " again");
     }
 
     private static void writeOrFail(OutputStream out, String line) {
