@@ -190,8 +190,7 @@ final class FastaPrePass {
         while (i < lim) {
             int c = b[i] & 0xFF;
             if (headerCr && c != '\n') {
-                throw new StriaException(display + ": line " + headerLine + ": a carriage return not followed by a "
-                        + "line feed; lines that end with CR alone are not read: convert the line ends to LF or CRLF");
+                throw new StriaException(display + ": line " + headerLine + ": " + FastaSyntax.LONE_CR);
             }
             headerCr = c == '\r';
             if (c == '\n') {

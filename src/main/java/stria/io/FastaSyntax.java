@@ -50,6 +50,10 @@ final class FastaSyntax {
     static final String NOT_UTF8 = "record name is not valid UTF-8 text (outputs must repeat it byte for byte); "
             + "rename the record";
 
+    /** Why a header line with a carriage return not followed by a line feed is refused. */
+    static final String LONE_CR = "a carriage return not followed by a line feed; lines that end with CR alone "
+            + "are not read: convert the line ends to LF or CRLF";
+
     /** Control bytes never appear in FASTA text; seeing one means binary data. */
     static boolean isControl(int b) {
         return (b < 0x20 && b != '\t' && b != '\n' && b != '\r' && b != 0x0B && b != 0x0C) || b == 0x7F;

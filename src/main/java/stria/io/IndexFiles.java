@@ -130,12 +130,17 @@ final class IndexFiles {
         java.io.ByteArrayOutputStream name = new java.io.ByteArrayOutputStream();
         boolean inName = true;
         int c = in.peek();
+        boolean cr = false;
         while (c >= 0 && c != '\n') {
-            // the pre-pass refuses control bytes in headers; an index must not make such a file acceptable
+            // the pre-pass refuses these header lines; an index must not make such a file acceptable
             if (FastaSyntax.isControl(c)) {
                 throw new StriaException(display + ": " + FastaSyntax.describe(c) + " in the header line at offset "
                         + start + "; binary data, not a FASTA file");
             }
+            if (cr) {
+                throw new StriaException(display + ": header line at offset " + start + ": " + FastaSyntax.LONE_CR);
+            }
+            cr = c == '\r';
             inName = inName && c != ' ' && c != '\t' && c != '\r';
             if (inName) {
                 name.write(c);

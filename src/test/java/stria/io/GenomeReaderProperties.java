@@ -18,6 +18,7 @@ import java.util.Random;
 import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
 import net.jqwik.api.Combinators;
+import net.jqwik.api.Example;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
@@ -134,10 +135,27 @@ class GenomeReaderProperties {
     @Property(tries = 300)
     void staleFaiNeverGivesADifferentAnswer(@ForAll("fasta") Model model, @ForAll("mutations") List<int[]> mutations,
                                             @ForAll boolean bgzf) throws IOException {
+        staleIndexAgrees(model.text(), mutate(model.text(), mutations), bgzf);
+    }
+
+    /**
+     * Found by a random seed: a space in a description turned into a carriage return keeps every offset,
+     * so the old index still fits, and the header line then ends in a lone CR that the pre-pass refuses.
+     */
+    @Example
+    void loneCarriageReturnInAHeaderIsRefusedWithAnIndexToo() throws IOException {
+        byte[] text = ">r0_x desc 7\nAGBATTRRT\n".getBytes(StandardCharsets.ISO_8859_1);
+        byte[] changed = ">r0_x desc\r7\nAGBATTRRT\n".getBytes(StandardCharsets.ISO_8859_1);
+        for (boolean bgzf : new boolean[] {false, true}) {
+            assertThat(staleIndexAgrees(text, changed, bgzf)).isNull();
+        }
+    }
+
+    /** Indexes {@code text}, replaces the file by {@code changed}, and returns what the reader then gives. */
+    private static Map<String, String> staleIndexAgrees(byte[] text, byte[] changed, boolean bgzf) throws IOException {
         Form form = bgzf ? Form.BGZF : Form.PLAIN;
-        Path p = store(model.text(), form, 100);
-        FastaFiles.faidxLikeSamtools(p, model.text());
-        byte[] changed = mutate(model.text(), mutations);
+        Path p = store(text, form, 100);
+        FastaFiles.faidxLikeSamtools(p, text);
         Path fresh = store(changed, form, 100);
         Files.copy(fresh, p, java.nio.file.StandardCopyOption.REPLACE_EXISTING);
         Map<String, String> withIndex = outcome(p);
@@ -145,6 +163,7 @@ class GenomeReaderProperties {
         if (withIndex != null) {
             assertThat(withIndex).isEqualTo(withoutIndex);
         }
+        return withIndex;
     }
 
     record Model(byte[] text, Map<String, String> expected) {
