@@ -164,55 +164,64 @@ final class ArrayJoin {
      */
     private static List<Candidate> joinPieceByPiece(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
                                                    List<Candidate> won) {
-        List<Candidate> out = new ArrayList<>(won.size());
         // the pieces a joined locus was aligned from: a later join realigns each from its own start
         List<int[]> starts = new ArrayList<>(won.size());
         for (Candidate k : won) {
             starts.add(new int[] {k.start});
         }
         List<Candidate> work = new ArrayList<>(won);
-        int i = 0;
-        while (i < work.size()) {
-            Candidate a = work.get(i);
-            if (a.period >= MIN_PERIOD) {
-                int[] chain = chain(builder, quiet, work, i);
-                // a chain refused whole is tried again on its first half, quarter, ..., two pieces
-                boolean joined = false;
-                for (int n = chain.length; n > 1 && !joined; n = n > 2 ? Math.max(2, n / 2) : 1) {
-                    int[] pieces = Arrays.copyOf(chain, n);
-                    int last = pieces[n - 1];
-                    int c = quiet.componentAt(a.start);
-                    int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start)
-                            : quiet.end(c);
-                    int[] from = startsOf(starts, pieces);
-                    // the first alignment uses the motif of the piece that scores best: a short first
-                    // piece's motif may explain the others worse than theirs explain it
-                    Candidate best = a;
-                    for (int j : pieces) {
-                        if (work.get(j).score > best.score) {
-                            best = work.get(j);
-                        }
-                    }
-                    int phase = best == a ? a.phaseA : builder.bestPhase(a.model, a.start, best.motif,
-                            a.length(), CandidateBuilder.xdrop(best.period), 0);
-                    Candidate m = builder.settlePieces(from, stop, best.motif, phase, dropScale(a.period));
-                    if (m != null && accepted(filter, work, i, last, pieces, m)) {
-                        // the joined locus may now reach the next piece: it is chained again
-                        work.subList(i + 1, last + 1).clear();
-                        work.set(i, m);
-                        starts.subList(i + 1, last + 1).clear();
-                        starts.set(i, from);
-                        joined = true;
-                    }
-                }
-                if (joined) {
-                    continue;
+        // passes until nothing joins: a piece refused beside a short neighbour is tried again once that
+        // neighbour has grown, so that the copies beside the break are the array's, not a few of a piece's
+        boolean changed = true;
+        while (changed) {
+            changed = false;
+            int i = 0;
+            while (i < work.size()) {
+                if (work.get(i).period >= MIN_PERIOD && joinAt(builder, filter, quiet, work, starts, i)) {
+                    changed = true;
+                } else {
+                    i++;
                 }
             }
-            out.add(a);
-            i++;
         }
-        return out;
+        return work;
+    }
+
+    /**
+     * Joins the chain of pieces that starts at {@code i}, or its first half, quarter, ..., two pieces, into
+     * one locus in place; whether it did.
+     */
+    private static boolean joinAt(CandidateBuilder builder, LocusFilter filter, QuietPoints quiet,
+                                  List<Candidate> work, List<int[]> starts, int i) {
+        Candidate a = work.get(i);
+        int[] chain = chain(builder, quiet, work, starts, i);
+        for (int n = chain.length; n > 1; n = n > 2 ? Math.max(2, n / 2) : 1) {
+            int[] pieces = Arrays.copyOf(chain, n);
+            int last = pieces[n - 1];
+            int c = quiet.componentAt(a.start);
+            int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start) : quiet.end(c);
+            int[] from = startsOf(starts, pieces);
+            // the first alignment uses the motif of the piece that scores best: a short first piece's motif
+            // may explain the others worse than theirs explain it
+            Candidate best = a;
+            for (int j : pieces) {
+                if (work.get(j).score > best.score) {
+                    best = work.get(j);
+                }
+            }
+            int phase = best == a ? a.phaseA : builder.bestPhase(a.model, a.start, best.motif, a.length(),
+                    CandidateBuilder.xdrop(best.period), 0);
+            Candidate m = builder.settlePieces(from, stop, best.motif, phase, dropScale(a.period));
+            if (m != null && accepted(filter, work, i, last, pieces, m)) {
+                // the joined locus may now reach the next piece: it is chained again
+                work.subList(i + 1, last + 1).clear();
+                work.set(i, m);
+                starts.subList(i + 1, last + 1).clear();
+                starts.set(i, from);
+                return true;
+            }
+        }
+        return false;
     }
 
     private static int[] startsOf(List<int[]> starts, int[] pieces) {
@@ -242,7 +251,8 @@ final class ArrayJoin {
      * seed reaches, and explained by the motif of the piece before at most {@link #UNIT_LOSS} less purely
      * than by its own.
      */
-    private static int[] chain(CandidateBuilder builder, QuietPoints quiet, List<Candidate> won, int i) {
+    private static int[] chain(CandidateBuilder builder, QuietPoints quiet, List<Candidate> won, List<int[]> starts,
+                               int i) {
         Candidate a = won.get(i);
         int c = quiet.componentAt(a.start);
         int gap = GAP_UNITS * a.period;
@@ -250,6 +260,7 @@ final class ArrayJoin {
         int n = 0;
         pieces[n++] = i;
         Candidate u = a;
+        int[] su = starts.get(i);
         int end = a.end;
         for (int j = i + 1; j < won.size(); j++) {
             Candidate w = won.get(j);
@@ -257,7 +268,7 @@ final class ArrayJoin {
                 break;
             }
             if (Math.abs(w.period - a.period) <= PERIOD_TOLERANCE * a.period) {
-                if (!sameUnit(builder, u, w)) {
+                if (!sameUnit(builder, u, su, w, starts.get(j))) {
                     break;
                 }
                 if (n == pieces.length) {
@@ -265,6 +276,7 @@ final class ArrayJoin {
                 }
                 pieces[n++] = j;
                 u = w;
+                su = starts.get(j);
                 end = Math.max(end, w.end);
                 } else if (w.length() > gap) {
                 break;
@@ -278,11 +290,24 @@ final class ArrayJoin {
      * most {@link #UNIT_LOSS} less purely than its own, and the copies beside the break show no
      * {@link #fixedDifference}.
      */
-    private static boolean sameUnit(CandidateBuilder builder, Candidate u, Candidate w) {
-        if (explained(builder, u, w) != null) {
-            return !fixedDifference(builder, u, w);
+    private static boolean sameUnit(CandidateBuilder builder, Candidate u, int[] su, Candidate w, int[] sw) {
+        if (explained(builder, u, w, sw) != null) {
+            return !fixedDifference(builder, u, su, w, sw);
         }
-        return explained(builder, w, u) != null && !fixedDifference(builder, w, u);
+        return explained(builder, w, u, su) != null && !fixedDifference(builder, w, sw, u, su);
+    }
+
+    /** {@code from} and the starts of {@code s} in {@code (from, to)}: where the pieces of a locus begin. */
+    private static int[] within(int[] s, int from, int to) {
+        int[] out = new int[s.length + 1];
+        int n = 0;
+        out[n++] = from;
+        for (int x : s) {
+            if (x > from && x < to) {
+                out[n++] = x;
+            }
+        }
+        return Arrays.copyOf(out, n);
     }
 
     /**
@@ -293,18 +318,18 @@ final class ArrayJoin {
      * stays two loci; the copies of one diverged array vary at the phases where two pieces' consensuses
      * differ.
      */
-    private static boolean fixedDifference(CandidateBuilder builder, Candidate u, Candidate w) {
+    private static boolean fixedDifference(CandidateBuilder builder, Candidate u, int[] su, Candidate w, int[] sw) {
         int p = u.period;
         int from = Math.max(u.start, u.end - FIXED_UNITS * p);
         int xd = CandidateBuilder.xdrop(p);
         int phaseU = builder.bestPhase(u.model, from, u.motif, u.end - from, xd, u.phases.at(from - u.start));
-        if (builder.alignPieces(new int[] {from}, u.end, u.motif, phaseU, 1) == null) {
+        if (builder.alignPieces(within(su, from, u.end), u.end, u.motif, phaseU, 1) == null) {
             return false;
         }
         int[] a = builder.votes(p);
         int to = Math.min(w.end, w.start + FIXED_UNITS * p);
         int phaseW = builder.bestPhase(w.model, w.start, u.motif, to - w.start, xd, 0);
-        if (builder.alignPieces(new int[] {w.start}, to, u.motif, phaseW, 1) == null) {
+        if (builder.alignPieces(within(sw, w.start, to), to, u.motif, phaseW, 1) == null) {
             return false;
         }
         int[] b = builder.votes(p);
@@ -336,9 +361,9 @@ final class ArrayJoin {
     }
 
     /** {@code w} aligned against {@code u}'s motif, when that is at most {@link #UNIT_LOSS} less pure; else null. */
-    private static Candidate explained(CandidateBuilder builder, Candidate u, Candidate w) {
+    private static Candidate explained(CandidateBuilder builder, Candidate u, Candidate w, int[] sw) {
         int phase = builder.bestPhase(w.model, w.start, u.motif, w.length(), CandidateBuilder.xdrop(u.period), 0);
-        Candidate k = builder.alignPieces(new int[] {w.start}, w.end, u.motif, phase, dropScale(u.period));
+        Candidate k = builder.alignPieces(within(sw, w.start, w.end), w.end, u.motif, phase, dropScale(u.period));
         return k != null && k.end >= w.end - w.period / 2 && k.purity() >= w.purity() - UNIT_LOSS ? k : null;
     }
 
