@@ -57,6 +57,8 @@ final class ArrayJoin {
     static final int FIXED_COPIES = 3;
     /** Purity a piece may lose against the motif of its neighbour, or the pieces against the joined motif. */
     static final double UNIT_LOSS = 0.10;
+    /** Times the alignment of a piece against its neighbour's motif goes on from where it stopped. */
+    static final int RESTARTS = 4;
 
     private ArrayJoin() {
     }
@@ -201,17 +203,23 @@ final class ArrayJoin {
             int c = quiet.componentAt(a.start);
             int stop = last + 1 < work.size() ? Math.min(quiet.end(c), work.get(last + 1).start) : quiet.end(c);
             int[] from = startsOf(starts, pieces);
-            // the first alignment uses the motif of the piece that scores best: a short first piece's motif
-            // may explain the others worse than theirs explain it
-            Candidate best = a;
+            // the first alignment uses the motif of the piece that scores best among those at the chain's
+            // unit (its shortest period): a short first piece's motif may explain the others worse than
+            // theirs explain it
+            int unit = a.period;
             for (int j : pieces) {
-                if (work.get(j).score > best.score) {
-                    best = work.get(j);
+                unit = Math.min(unit, work.get(j).period);
+            }
+            Candidate best = null;
+            for (int j : pieces) {
+                Candidate w = work.get(j);
+                if (multiple(unit, w.period) == 1 && (best == null || w.score > best.score)) {
+                    best = w;
                 }
             }
             int phase = best == a ? a.phaseA : builder.bestPhase(a.model, a.start, best.motif, a.length(),
                     CandidateBuilder.xdrop(best.period), 0);
-            Candidate m = builder.settlePieces(from, stop, best.motif, phase, dropScale(a.period));
+            Candidate m = builder.settlePieces(from, stop, best.motif, phase, dropScale(best.period));
             if (m != null && accepted(filter, work, i, last, pieces, m)) {
                 // the joined locus may now reach the next piece: it is chained again
                 work.subList(i + 1, last + 1).clear();
@@ -262,12 +270,14 @@ final class ArrayJoin {
         Candidate u = a;
         int[] su = starts.get(i);
         int end = a.end;
+        // the chain's unit: its shortest period; every piece is at it or at a multiple of it
+        int unit = a.period;
         for (int j = i + 1; j < won.size(); j++) {
             Candidate w = won.get(j);
             if (w.start > end + gap || quiet.componentAt(w.start) != c) {
                 break;
             }
-            if (Math.abs(w.period - a.period) <= PERIOD_TOLERANCE * a.period) {
+            if (multiple(unit, w.period) == 1 || multiple(unit, w.period) > 1 && multiple(u.period, w.period) > 0) {
                 if (!sameUnit(builder, u, su, w, starts.get(j))) {
                     break;
                 }
@@ -278,7 +288,8 @@ final class ArrayJoin {
                 u = w;
                 su = starts.get(j);
                 end = Math.max(end, w.end);
-                } else if (w.length() > gap) {
+                unit = Math.min(unit, w.period);
+            } else if (w.length() > gap) {
                 break;
             }
         }
@@ -291,10 +302,29 @@ final class ArrayJoin {
      * {@link #fixedDifference}.
      */
     private static boolean sameUnit(CandidateBuilder builder, Candidate u, int[] su, Candidate w, int[] sw) {
-        if (explained(builder, u, w, sw) != null) {
-            return !fixedDifference(builder, u, su, w, sw);
+        if (multiple(u.period, w.period) == 1) {
+            if (explained(builder, u, w, sw) != null) {
+                return !fixedDifference(builder, u.motif, u, su, w, sw);
+            }
+            return explained(builder, w, u, su) != null && !fixedDifference(builder, w.motif, u, su, w, sw);
         }
-        return explained(builder, w, u, su) != null && !fixedDifference(builder, w, sw, u, su);
+        // a piece at a multiple of the unit (a block of a few units that a seed found whole): the shorter
+        // unit must explain it
+        if (u.period < w.period) {
+            return explained(builder, u, w, sw) != null && !fixedDifference(builder, u.motif, u, su, w, sw);
+        }
+        return explained(builder, w, u, su) != null && !fixedDifference(builder, w.motif, u, su, w, sw);
+    }
+
+    /**
+     * m when the longer of two periods is within {@link #PERIOD_TOLERANCE} of m times the shorter (m = 1 to
+     * {@link NestedUnits#MAX_UNITS}), else 0.
+     */
+    static int multiple(int p, int q) {
+        int lo = Math.min(p, q);
+        int hi = Math.max(p, q);
+        int m = Math.round(hi / (float) lo);
+        return m >= 1 && m <= NestedUnits.MAX_UNITS && Math.abs(hi - m * lo) <= PERIOD_TOLERANCE * m * lo ? m : 0;
     }
 
     /** {@code from} and the starts of {@code s} in {@code (from, to)}: where the pieces of a locus begin. */
@@ -318,18 +348,20 @@ final class ArrayJoin {
      * stays two loci; the copies of one diverged array vary at the phases where two pieces' consensuses
      * differ.
      */
-    private static boolean fixedDifference(CandidateBuilder builder, Candidate u, int[] su, Candidate w, int[] sw) {
-        int p = u.period;
+    private static boolean fixedDifference(CandidateBuilder builder, byte[] motif, Candidate u, int[] su, Candidate w,
+                                           int[] sw) {
+        int p = motif.length;
         int from = Math.max(u.start, u.end - FIXED_UNITS * p);
         int xd = CandidateBuilder.xdrop(p);
-        int phaseU = builder.bestPhase(u.model, from, u.motif, u.end - from, xd, u.phases.at(from - u.start));
-        if (builder.alignPieces(within(su, from, u.end), u.end, u.motif, phaseU, 1) == null) {
+        int hint = motif == u.motif ? u.phases.at(from - u.start) : 0;
+        int phaseU = builder.bestPhase(u.model, from, motif, u.end - from, xd, hint);
+        if (builder.alignPieces(within(su, from, u.end), u.end, motif, phaseU, 1) == null) {
             return false;
         }
         int[] a = builder.votes(p);
         int to = Math.min(w.end, w.start + FIXED_UNITS * p);
-        int phaseW = builder.bestPhase(w.model, w.start, u.motif, to - w.start, xd, 0);
-        if (builder.alignPieces(within(sw, w.start, to), to, u.motif, phaseW, 1) == null) {
+        int phaseW = builder.bestPhase(w.model, w.start, motif, to - w.start, xd, 0);
+        if (builder.alignPieces(within(sw, w.start, to), to, motif, phaseW, 1) == null) {
             return false;
         }
         int[] b = builder.votes(p);
@@ -363,7 +395,16 @@ final class ArrayJoin {
     /** {@code w} aligned against {@code u}'s motif, when that is at most {@link #UNIT_LOSS} less pure; else null. */
     private static Candidate explained(CandidateBuilder builder, Candidate u, Candidate w, int[] sw) {
         int phase = builder.bestPhase(w.model, w.start, u.motif, w.length(), CandidateBuilder.xdrop(u.period), 0);
-        Candidate k = builder.alignPieces(within(sw, w.start, w.end), w.end, u.motif, phase, dropScale(u.period));
+        int[] from = within(sw, w.start, w.end);
+        Candidate k = builder.alignPieces(from, w.end, u.motif, phase, dropScale(u.period));
+        // where the alignment stops short (a jump of phase inside w that w's own motif, of another length,
+        // took in its stride), it goes on from there as from the start of another piece
+        for (int r = 0; r < RESTARTS && k != null && k.end < w.end - w.period / 2
+                && k.end >= from[from.length - 1] + u.period; r++) {
+            from = Arrays.copyOf(from, from.length + 1);
+            from[from.length - 1] = k.end;
+            k = builder.alignPieces(from, w.end, u.motif, phase, dropScale(u.period));
+        }
         return k != null && k.end >= w.end - w.period / 2 && k.purity() >= w.purity() - UNIT_LOSS ? k : null;
     }
 

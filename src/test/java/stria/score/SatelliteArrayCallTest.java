@@ -113,6 +113,19 @@ class SatelliteArrayCallTest {
     }
 
     @Test
+    void multipleIsTheRatioOfTwoCommensuratePeriods() {
+        assertThat(ArrayJoin.multiple(171, 171)).isEqualTo(1);
+        assertThat(ArrayJoin.multiple(172, 168)).isEqualTo(1);
+        assertThat(ArrayJoin.multiple(172, 344)).isEqualTo(2);
+        assertThat(ArrayJoin.multiple(344, 172)).isEqualTo(2);
+        assertThat(ArrayJoin.multiple(171, 1040)).isEqualTo(6);
+        // 260 is 1.5 units: no multiple; 3 x 171 = 513 is 33 bases (over 5 %) from 480
+        assertThat(ArrayJoin.multiple(171, 260)).isZero();
+        assertThat(ArrayJoin.multiple(171, 480)).isZero();
+        assertThat(ArrayJoin.multiple(50, 1000)).isZero();
+    }
+
+    @Test
     void anInvertedHalfStaysTwoLoci() {
         Random r = new Random(37);
         String unit = random(UNIT, r);
