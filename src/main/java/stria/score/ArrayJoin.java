@@ -19,21 +19,25 @@ import java.util.List;
  * {@link #GAP_UNITS} units; the result replaces the pieces it reaches the end of when it passes the
  * filters, keeps half their summed score and is at most {@link #PURITY_LOSS} less pure than its least pure
  * piece. <em>Piece by piece</em> (what is left, in particular where the phase jumps at the break by
- * more than the band): the pieces form a chain while each next piece, of a period within {@link #PERIOD_TOLERANCE}, starts no more than
- * {@link #GAP_UNITS} units after the chain ends (no locus of another period longer than that between
- * them) and is of the same unit as the piece before: the motif of one explains the other, aligned from
- * its start at the phase that fits best, at most {@link #UNIT_LOSS} less purely than its own (unrelated
+ * more than the band): the pieces form a chain while each next piece, of a period within
+ * {@link #PERIOD_TOLERANCE} of the chain's unit or of a {@link #multiple} of it (a block of a few units
+ * that a seed found whole), starts no more than {@link #GAP_UNITS} units after the chain ends (no locus
+ * of another period longer than that between them) and is of the same unit as the piece before: the
+ * motif of one (of the shorter unit, when the periods differ) explains the other, aligned from each of
+ * its pieces' starts at the phase that fits best and on from where that stops ({@link #RESTARTS} times),
+ * at most {@link #UNIT_LOSS} less purely than its own (unrelated
  * units of one length align at a purity of 0.3 to 0.5, an inverted piece, whose + strand motif is the
  * reverse complement, not at all; the pieces of one real array differ by 1 to 8 %), and the copies beside
  * the break show no fixed difference ({@link #fixedDifference}: a unit changed in one base, as in
  * (CA)n(GA)m, is two units). The chain is aligned as one locus against one motif
  * ({@link CandidateBuilder#settlePieces}): each piece from its own start at its best phase, the bases
  * between them charged as the cheapest columns between the two phases, the copies of all pieces voting
- * on the consensus. The joined locus replaces the pieces (and any locus of another period between them)
+ * on the consensus, with the motif of the best piece at the chain's unit. The joined locus replaces the pieces (and any locus of another period between them)
  * when it reaches the last piece's end, passes the filters, keeps at least the first piece's and half of
  * the pieces' summed score, and is at most {@link #UNIT_LOSS} less pure than the pieces together; a
  * refused chain is tried again on its first half, quarter, ..., two pieces, and a joined locus is chained
- * again, since it may now reach the next piece. So an array is split only where it is really interrupted:
+ * again, since it may now reach the next piece; the pass repeats until nothing joins, so that a piece
+ * refused beside a short neighbour is compared again with the whole array next to it. So an array is split only where it is really interrupted:
  * by more than {@link #GAP_UNITS} units of unrelated sequence, or where its unit changes (another period,
  * another unit of the same length, a fixed difference, or the other strand).
  *
