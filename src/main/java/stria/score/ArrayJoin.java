@@ -273,6 +273,8 @@ final class ArrayJoin {
         pieces[n++] = i;
         Candidate u = a;
         int[] su = starts.get(i);
+        // the starts of every piece of the chain so far: the copies before a break are the chain's
+        int[] cs = su;
         int end = a.end;
         // the chain's unit: its shortest period; every piece is at it or at a multiple of it
         int unit = a.period;
@@ -282,7 +284,7 @@ final class ArrayJoin {
                 break;
             }
             if (multiple(unit, w.period) == 1 || multiple(unit, w.period) > 1 && multiple(u.period, w.period) > 0) {
-                if (!sameUnit(builder, u, su, w, starts.get(j))) {
+                if (!sameUnit(builder, u, su, a.start, cs, w, starts.get(j))) {
                     break;
                 }
                 if (n == pieces.length) {
@@ -291,6 +293,7 @@ final class ArrayJoin {
                 pieces[n++] = j;
                 u = w;
                 su = starts.get(j);
+                cs = concat(cs, su);
                 end = Math.max(end, w.end);
                 unit = Math.min(unit, w.period);
             } else if (w.length() > gap) {
@@ -305,19 +308,20 @@ final class ArrayJoin {
      * most {@link #UNIT_LOSS} less purely than its own, and the copies beside the break show no
      * {@link #fixedDifference}.
      */
-    private static boolean sameUnit(CandidateBuilder builder, Candidate u, int[] su, Candidate w, int[] sw) {
+    private static boolean sameUnit(CandidateBuilder builder, Candidate u, int[] su, int left, int[] cs, Candidate w,
+                                    int[] sw) {
         if (multiple(u.period, w.period) == 1) {
             if (explained(builder, u, w, sw) != null) {
-                return !fixedDifference(builder, u.motif, u, su, w, sw);
+                return !fixedDifference(builder, u.motif, u, left, cs, w, sw);
             }
-            return explained(builder, w, u, su) != null && !fixedDifference(builder, w.motif, u, su, w, sw);
+            return explained(builder, w, u, su) != null && !fixedDifference(builder, w.motif, u, left, cs, w, sw);
         }
         // a piece at a multiple of the unit (a block of a few units that a seed found whole): the shorter
         // unit must explain it
         if (u.period < w.period) {
-            return explained(builder, u, w, sw) != null && !fixedDifference(builder, u.motif, u, su, w, sw);
+            return explained(builder, u, w, sw) != null && !fixedDifference(builder, u.motif, u, left, cs, w, sw);
         }
-        return explained(builder, w, u, su) != null && !fixedDifference(builder, w.motif, u, su, w, sw);
+        return explained(builder, w, u, su) != null && !fixedDifference(builder, w.motif, u, left, cs, w, sw);
     }
 
     /**
@@ -329,6 +333,12 @@ final class ArrayJoin {
         int hi = Math.max(p, q);
         int m = Math.round(hi / (float) lo);
         return m >= 1 && m <= NestedUnits.MAX_UNITS && Math.abs(hi - m * lo) <= PERIOD_TOLERANCE * m * lo ? m : 0;
+    }
+
+    private static int[] concat(int[] a, int[] b) {
+        int[] out = Arrays.copyOf(a, a.length + b.length);
+        System.arraycopy(b, 0, out, a.length, b.length);
+        return out;
     }
 
     /** {@code from} and the starts of {@code s} in {@code (from, to)}: where the pieces of a locus begin. */
@@ -345,19 +355,21 @@ final class ArrayJoin {
     }
 
     /**
-     * Whether the copies of {@code u} and {@code w} next to the break, both aligned against {@code u}'s
-     * motif, differ at some phase as two units do, not as the copies of one array: at least
+     * Whether the copies on the two sides of the break between {@code u} and {@code w}, both aligned against
+     * {@code motif} (up to {@link #FIXED_UNITS} units each way: on {@code u}'s side those of the chain from
+     * {@code left}, each piece from its start in {@code su}), differ at some phase as two units do, not as
+     * the copies of one array: at least
      * {@link #FIXED_COPIES} copies on each side, {@link #FIXED_SHARE} of those of {@code u} with one letter
      * and that share of those of {@code w} with another. A unit changed in one base, as in (CA)n(GA)m, so
      * stays two loci; the copies of one diverged array vary at the phases where two pieces' consensuses
      * differ.
      */
-    private static boolean fixedDifference(CandidateBuilder builder, byte[] motif, Candidate u, int[] su, Candidate w,
-                                           int[] sw) {
+    private static boolean fixedDifference(CandidateBuilder builder, byte[] motif, Candidate u, int left, int[] su,
+                                           Candidate w, int[] sw) {
         int p = motif.length;
-        int from = Math.max(u.start, u.end - FIXED_UNITS * p);
+        int from = Math.max(left, u.end - FIXED_UNITS * p);
         int xd = CandidateBuilder.xdrop(p);
-        int hint = motif == u.motif ? u.phases.at(from - u.start) : 0;
+        int hint = motif == u.motif && from >= u.start ? u.phases.at(from - u.start) : 0;
         int phaseU = builder.bestPhase(u.model, from, motif, u.end - from, xd, hint);
         if (builder.alignPieces(within(su, from, u.end), u.end, motif, phaseU, 1) == null) {
             return false;
