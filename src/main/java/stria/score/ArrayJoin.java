@@ -283,7 +283,9 @@ final class ArrayJoin {
             if (w.start > end + gap || quiet.componentAt(w.start) != c) {
                 break;
             }
-            if (multiple(unit, w.period) == 1 || multiple(unit, w.period) > 1 && multiple(u.period, w.period) > 0) {
+            // at a multiple, every piece stays at MIN_PERIOD or more: the shorter unit is the chain's
+            if (multiple(unit, w.period) == 1 || multiple(unit, w.period) > 1 && w.period >= MIN_PERIOD
+                    && multiple(u.period, w.period) > 0) {
                 if (!sameUnit(builder, u, su, a.start, cs, w, starts.get(j))) {
                     break;
                 }
