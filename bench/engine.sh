@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# Engine benchmark: MB/s of suffix array, LCP, run enumeration and the whole run finder on one core,
+# Engine benchmark: MB/s of suffix array, LCP, the shallow index of imperfect mode, run enumeration and the whole run finder on one core,
 # over a generated 16 Mb genome cut into windows.   bench/engine.sh [WINDOW_BYTES]
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
