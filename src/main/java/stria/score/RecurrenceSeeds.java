@@ -108,6 +108,10 @@ final class RecurrenceSeeds {
             while (wx0 < x0) {
                 agree -= agrees(code, wx0++ - base, d);
             }
+            while (wx1 + 8 <= x1) {
+                agree += agrees8(code, wx1 - base, d);
+                wx1 += 8;
+            }
             while (wx1 < x1) {
                 agree += agrees(code, wx1++ - base, d);
             }
@@ -135,6 +139,9 @@ final class RecurrenceSeeds {
      * {@code code} (codes from a base of the sequence on, {@code length} of them readable).
      */
     private static int quick(byte[] code, int start, int d, int length) {
+        if (start - 8 >= d && start + K + 8 <= length) {
+            return agrees8(code, start - 8, d) + agrees8(code, start + K, d);
+        }
         int n = 0;
         for (int x = Math.max(d, start - 8); x < start; x++) {
             n += agrees(code, x, d);
@@ -143,6 +150,20 @@ final class RecurrenceSeeds {
             n += agrees(code, x, d);
         }
         return n;
+    }
+
+    private static final java.lang.invoke.VarHandle LONGS = java.lang.invoke.MethodHandles.byteArrayViewVarHandle(
+            long[].class, java.nio.ByteOrder.LITTLE_ENDIAN);
+    private static final long LOW7 = 0x7F7F7F7F7F7F7F7FL;
+
+    /** {@link #agrees} summed over the 8 codes from x, read as one long each. */
+    private static int agrees8(byte[] code, int x, int d) {
+        long a = (long) LONGS.get(code, x);
+        long b = (long) LONGS.get(code, x - d);
+        // a byte of v is zero exactly where the codes are equal and in 0..3; count the zero bytes
+        long v = (a ^ b) | (a & 0xFCFCFCFCFCFCFCFCL);
+        long nonzero = ((v & LOW7) + LOW7) | v;
+        return Long.bitCount(~nonzero & 0x8080808080808080L);
     }
 
     /** 1 when the code at x is A, C, G or T and equals the code d before it. */
