@@ -21,7 +21,7 @@ package stria.index;
  * Not thread safe.
  */
 public final class ShallowSuffixArray {
-    private static final int RADIX_BITS = 10;
+    private static final int RADIX_BITS = 13;
     private static final int BUCKETS = 1 << RADIX_BITS;
     private long[] keys = new long[0];
     private long[] spare = new long[0];
