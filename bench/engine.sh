@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# Engine benchmark: MB/s of suffix array, LCP, run enumeration and the whole run finder on one core,
-# over a generated 16 Mb genome cut into windows.   bench/engine.sh [WINDOW_BYTES]
+# Engine benchmark: MB/s of suffix array, LCP, the shallow index of imperfect mode, run enumeration and
+# the whole run finder on one core, over a generated 16 Mb genome cut into windows.   bench/engine.sh [WINDOW_BYTES]
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"

@@ -95,7 +95,7 @@ public final class Main implements Runnable {
         } else if (ex.getCause() instanceof OutOfMemoryError) {
             err.println(OUT_OF_MEMORY);
         } else {
-            err.println("stria: internal error: " + ex + (debug ? "" : " (run with --debug for details)"));
+            err.println("stria: internal error: " + oneLine(ex.toString()) + (debug ? "" : " (run with --debug for details)"));
         }
         if (debug) {
             ex.printStackTrace(err);

@@ -51,8 +51,8 @@ public record CompareHeader(ResultHeader a, List<ContigInfo> other) {
             if (l.startsWith(PREFIX_OTHER_INPUT)) {
                 compare = true;
             } else if (l.startsWith(PREFIX_OTHER_CONTIG)) {
-                String[] f = l.substring(PREFIX_OTHER_CONTIG.length()).split(" ");
-                other.add(new ContigInfo(f[0], Integer.parseInt(f[1])));
+                String[] f = ResultHeader.fields(l, PREFIX_OTHER_CONTIG, 2);
+                other.add(new ContigInfo(f[0], ResultHeader.number(f[1], l)));
             }
         }
         ResultHeader a = ResultHeader.parse(lines);

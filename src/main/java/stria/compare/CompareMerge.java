@@ -35,7 +35,11 @@ public final class CompareMerge {
 
     /** Whether {@code file} begins with the header of a comparison (rather than a scan result). */
     public static boolean isComparison(String file) {
-        return CompareHeader.parse(headerLines(file).lines) != null;
+        try {
+            return CompareHeader.parse(headerLines(file).lines) != null;
+        } catch (IllegalArgumentException e) {
+            throw new StriaException(file + " has a damaged header: " + e.getMessage());
+        }
     }
 
     public static CompareMerge check(List<String> files) {

@@ -82,7 +82,8 @@ public record ResultHeader(String version, String command, String settings, List
 
     /**
      * Parses the {@code #} lines of a result (lines not starting with {@code #} are ignored). Returns null
-     * when there is no {@code #stria} line. The fingerprint is recomputed from the contig lines; a file whose
+     * when there is no {@code #stria} line; a {@code #contig} or {@code #region} line that cannot be read
+     * is an {@link IllegalArgumentException} that quotes it (escaped, on one line). The fingerprint is recomputed from the contig lines; a file whose
      * {@code #input} line disagrees is reported through {@link #inputLineMatches}.
      */
     public static ResultHeader parse(List<String> lines) {
@@ -97,11 +98,19 @@ public record ResultHeader(String version, String command, String settings, List
             } else if (l.startsWith(PREFIX_SETTINGS)) {
                 settings = l.substring(PREFIX_SETTINGS.length());
             } else if (l.startsWith(PREFIX_CONTIG)) {
-                String[] f = l.substring(PREFIX_CONTIG.length()).split(" ");
-                contigs.add(new ContigInfo(unescape(f[0]), Integer.parseInt(f[1])));
+                String[] f = fields(l, PREFIX_CONTIG, 2);
+                try {
+                    contigs.add(new ContigInfo(unescape(f[0]), number(f[1], l)));
+                } catch (IllegalArgumentException e) {
+                    throw damaged(l);
+                }
             } else if (l.startsWith(PREFIX_REGION)) {
-                String[] f = l.substring(PREFIX_REGION.length()).split(" ");
-                regions.add(new Region(unescape(f[0]), Integer.parseInt(f[1]), Integer.parseInt(f[2])));
+                String[] f = fields(l, PREFIX_REGION, 3);
+                try {
+                    regions.add(new Region(unescape(f[0]), number(f[1], l), number(f[2], l)));
+                } catch (IllegalArgumentException e) {
+                    throw damaged(l);
+                }
             } else if (l.startsWith(PREFIX_SHARD)) {
                 shard = l.substring(PREFIX_SHARD.length()).trim();
             }
@@ -111,6 +120,28 @@ public record ResultHeader(String version, String command, String settings, List
         }
         return new ResultHeader(version, command, settings == null ? "" : settings, List.copyOf(contigs), shard,
                 List.copyOf(regions));
+    }
+
+    /** The {@code n} space-separated fields after {@code prefix}; refused when there are not exactly n. */
+    public static String[] fields(String line, String prefix, int n) {
+        String[] f = line.substring(prefix.length()).split(" ", -1);
+        if (f.length != n) {
+            throw damaged(line);
+        }
+        return f;
+    }
+
+    /** A length or position of a header line: digits only, within int. */
+    public static int number(String field, String line) {
+        if (field.isEmpty() || field.length() > 10 || !field.chars().allMatch(c -> c >= '0' && c <= '9')
+                || Long.parseLong(field) > Integer.MAX_VALUE) {
+            throw damaged(line);
+        }
+        return Integer.parseInt(field);
+    }
+
+    private static IllegalArgumentException damaged(String line) {
+        return new IllegalArgumentException("cannot read the line " + escape(line));
     }
 
     /**

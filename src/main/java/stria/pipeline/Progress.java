@@ -82,10 +82,10 @@ public final class Progress implements AutoCloseable {
     static String formatDuration(double secs) {
         long s = Math.round(secs);
         if (s >= 3600) {
-            return (s / 3600) + "h" + String.format("%02dm", (s % 3600) / 60);
+            return (s / 3600) + "h" + String.format(java.util.Locale.ROOT, "%02dm", (s % 3600) / 60);
         }
         if (s >= 60) {
-            return (s / 60) + "m" + String.format("%02ds", s % 60);
+            return (s / 60) + "m" + String.format(java.util.Locale.ROOT, "%02ds", s % 60);
         }
         return s + "s";
     }

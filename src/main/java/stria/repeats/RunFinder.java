@@ -3,6 +3,7 @@ package stria.repeats;
 import java.util.Arrays;
 
 import stria.index.LcpArray;
+import stria.index.ShallowSuffixArray;
 import stria.index.SuffixArray;
 import stria.io.Bases;
 
@@ -28,6 +29,7 @@ import stria.io.Bases;
  */
 public final class RunFinder {
     private final SuffixArray suffixArray = new SuffixArray();
+    private final ShallowSuffixArray shallow = new ShallowSuffixArray();
     private final BranchingSquares branching = new BranchingSquares();
     private int[] sa = new int[0];
     private int[] lcp = new int[0];
@@ -52,8 +54,14 @@ public final class RunFinder {
             return;
         }
         ensure(len);
-        suffixArray.sort(codes, from, len, Bases.BREAK + 1, sa);
-        LcpArray.phiWithInverse(codes, from, len, sa, lcp, work);
+        // the traversal caps LCP values at maxPeriod + 1: suffixes need ordering no deeper than that
+        int depth = maxPeriod + 1;
+        if (maxPeriod < len && ShallowSuffixArray.fits(len, depth, Bases.BREAK + 1)) {
+            shallow.build(codes, from, len, depth, Bases.BREAK + 1, sa, lcp, work);
+        } else {
+            suffixArray.sort(codes, from, len, Bases.BREAK + 1, sa);
+            LcpArray.phiWithInverse(codes, from, len, sa, lcp, work);
+        }
         runs(codes, from, len, sa, work, lcp, maxPeriod, out);
     }
 

@@ -57,7 +57,12 @@ public final class ResultReader {
                     }
                     hashLines.add(line);
                 }
-                ResultHeader h = ResultHeader.parse(hashLines);
+                ResultHeader h;
+                try {
+                    h = ResultHeader.parse(hashLines);
+                } catch (IllegalArgumentException e) {
+                    throw new StriaException(path + ": damaged header: " + e.getMessage());
+                }
                 if (h == null) {
                     throw new StriaException(path + ": not a stria result (no #stria header line)");
                 }

@@ -34,6 +34,7 @@ final class RecurrenceSeeds {
 
     private static final int MASK = (1 << (2 * K)) - 1;
     private final int[] last = new int[1 << (2 * K)];
+    private byte[] codes = new byte[0];
 
     /** Bases of sequence before a position that its seeds depend on. */
     static int context(int maxPeriod) {
@@ -51,6 +52,15 @@ final class RecurrenceSeeds {
         }
         maxPeriod = Math.min(maxPeriod, MAX_DISTANCE);
         Arrays.fill(last, Integer.MIN_VALUE / 2);
+        // the codes of every base the loop and the agreement windows read, looked up once
+        int base = Math.max(0, from - maxPeriod - WINDOW);
+        int top = Math.min(length, Math.max(to, from) + WINDOW);
+        top = Math.max(top, base);
+        if (codes.length < top - base) {
+            codes = new byte[Math.max(top - base, 2 * codes.length)];
+        }
+        byte[] code = codes;
+        Bases.encode(seq, base, top - base, code);
         int kmer = 0;
         int valid = 0;
         int half = WINDOW / 2;
@@ -64,7 +74,7 @@ final class RecurrenceSeeds {
         int blockFrom = 0;
         int blockLast = 0;
         for (int i = from; i < to; i++) {
-            int c = Bases.code(seq[i]);
+            int c = code[i - base];
             if (c < 0 || c > 3) {
                 valid = 0;
                 continue;
@@ -87,7 +97,7 @@ final class RecurrenceSeeds {
             if (d != wd || x0 < wx0 || x0 > wx1) {
                 // a fresh distance: most are chance recurrences, so look at the 8 bases on each side of
                 // the word first (a repeat agrees on about three quarters of them, chance on a quarter)
-                if (quick(seq, start, d, length) < QUICK) {
+                if (quick(code, start - base, d, length - base) < QUICK) {
                     continue;
                 }
                 wd = d;
@@ -96,10 +106,14 @@ final class RecurrenceSeeds {
                 agree = 0;
             }
             while (wx0 < x0) {
-                agree -= agrees(seq, wx0++, d);
+                agree -= agrees(code, wx0++ - base, d);
+            }
+            while (wx1 + 8 <= x1) {
+                agree += agrees8(code, wx1 - base, d);
+                wx1 += 8;
             }
             while (wx1 < x1) {
-                agree += agrees(seq, wx1++, d);
+                agree += agrees(code, wx1++ - base, d);
             }
             if (agree < AGREE) {
                 continue;
@@ -120,24 +134,44 @@ final class RecurrenceSeeds {
         }
     }
 
-    /** Agreements at distance d over the 8 bases before and the 8 after the word starting at start. */
-    private static int quick(byte[] seq, int start, int d, int length) {
+    /**
+     * Agreements at distance d over the 8 bases before and the 8 after the word starting at start, in
+     * {@code code} (codes from a base of the sequence on, {@code length} of them readable).
+     */
+    private static int quick(byte[] code, int start, int d, int length) {
+        if (start - 8 >= d && start + K + 8 <= length) {
+            return agrees8(code, start - 8, d) + agrees8(code, start + K, d);
+        }
         int n = 0;
         for (int x = Math.max(d, start - 8); x < start; x++) {
-            n += agrees(seq, x, d);
+            n += agrees(code, x, d);
         }
         for (int x = start + K, e = Math.min(length, start + K + 8); x < e; x++) {
-            n += agrees(seq, x, d);
+            n += agrees(code, x, d);
         }
         return n;
     }
 
-    /** 1 when the base at x is A, C, G or T and equals the base d before it (either case). */
-    private static int agrees(byte[] seq, int x, int d) {
+    private static final java.lang.invoke.VarHandle LONGS = java.lang.invoke.MethodHandles.byteArrayViewVarHandle(
+            long[].class, java.nio.ByteOrder.LITTLE_ENDIAN);
+    private static final long LOW7 = 0x7F7F7F7F7F7F7F7FL;
+
+    /** {@link #agrees} summed over the 8 codes from x, read as one long each. */
+    private static int agrees8(byte[] code, int x, int d) {
+        long a = (long) LONGS.get(code, x);
+        long b = (long) LONGS.get(code, x - d);
+        // a byte of v is zero exactly where the codes are equal and in 0..3; count the zero bytes
+        long v = (a ^ b) | (a & 0xFCFCFCFCFCFCFCFCL);
+        long nonzero = ((v & LOW7) + LOW7) | v;
+        return Long.bitCount(~nonzero & 0x8080808080808080L);
+    }
+
+    /** 1 when the code at x is A, C, G or T and equals the code d before it. */
+    private static int agrees(byte[] code, int x, int d) {
         // zero exactly when the codes are equal and in 0..3: chance agreement is a coin toss for the branch
         // predictor, so the count is formed without branches
-        int a = Bases.code(seq[x]);
-        int v = (a ^ Bases.code(seq[x - d])) | (a & ~3);
+        int a = code[x];
+        int v = (a ^ code[x - d]) | (a & ~3);
         return 1 - ((v | -v) >>> 31);
     }
 }

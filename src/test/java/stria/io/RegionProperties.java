@@ -13,7 +13,7 @@ import stria.StriaException;
 
 class RegionProperties {
     private static String grouped(long n, boolean commas) {
-        return commas ? String.format("%,d", n) : Long.toString(n);
+        return commas ? String.format(java.util.Locale.ROOT, "%,d", n) : Long.toString(n);
     }
 
     /** What people type, 1-based inclusive, always lands on the same 0-based half-open stretch. */
