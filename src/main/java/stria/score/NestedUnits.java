@@ -16,8 +16,12 @@ import stria.io.Bases;
  *   <li><em>Block above the unit.</em> For k = 2..{@link #MAX_UNITS} with k P within the period limit, the
  *       smallest k whose distance k P disagrees in at most half as many bases as P ({@link #CLEARER}) and
  *       agrees in at least {@link #BLOCK_AGREEMENT} of them: the copies of the block explain the array
- *       clearly better than the units. The locus is realigned with the block as its unit; it keeps the block
- *       when that alignment covers the locus as well and is purer, with P as the subunit and k subunits.
+ *       clearly better than the units. The block's length is k P moved by {@link #shift}, the offset at
+ *       which its copies line up best (the units' consensus can be a base or two off the units' mean length,
+ *       k times over). The locus is realigned with the block as its unit; it keeps the block when that
+ *       alignment covers the locus as well and is purer, with P as the subunit and k subunits; or, when P
+ *       is itself m diverged units (P / m agrees at least {@link #UNIT_AGREEMENT} and as well as P, within
+ *       {@link #ALIKE}), with P / m as the subunit and k m subunits.
  *   <li><em>Units inside the motif.</em> Otherwise, the largest k = 2..{@link #MAX_UNITS} such that the
  *       distance q = P / k (at least {@link #MIN_SUBUNIT}) agrees in at least {@link #UNIT_AGREEMENT} of the
  *       bases, and P disagrees in at most half as many: q is the subunit, k the subunits.
@@ -32,6 +36,7 @@ final class NestedUnits {
     static final double CLEARER = 0.5;
     static final double BLOCK_AGREEMENT = 0.8;
     static final double UNIT_AGREEMENT = 0.6;
+    static final double ALIKE = 0.05;
     private static final int WINDOW = 32;
     private static final int MAX_WINDOWS = 600;
 
@@ -49,8 +54,19 @@ final class NestedUnits {
         for (int n = 2; n <= MAX_UNITS && (long) n * p <= maxPeriod && 3L * n * p <= k.length(); n++) {
             double block = agreement(seq, k.start, k.end, n * p);
             if (block >= BLOCK_AGREEMENT && 1 - block <= CLEARER * (1 - unit)) {
-                Candidate b = asBlock(builder, filter, k, n * p, cap);
+                // n P is the block only as far as the units' consensus length is exact: the copies of the
+                // block say its length, as the offset at which they line up best
+                int length = n * p + shift(seq, k.start, k.end, n * p);
+                Candidate b = length > p && length <= maxPeriod ? asBlock(builder, filter, k, length, cap) : null;
                 if (b != null) {
+                    // the unit may itself be m diverged units, as alike as the units of a block are: the
+                    // subunit is then the shortest of them
+                    for (int m = MAX_UNITS; m >= 2; m--) {
+                        int q = Math.round(p / (float) m);
+                        if (q >= MIN_SUBUNIT && agreement(seq, k.start, k.end, q) >= Math.max(UNIT_AGREEMENT, unit - ALIKE)) {
+                            return b.withSubunits(q, n * m);
+                        }
+                    }
                     return b.withSubunits(p, n);
                 }
                 break;
@@ -88,6 +104,60 @@ final class NestedUnits {
     }
 
     /**
+     * The offset from {@code d}, within the slack of {@link #agreement}, at which the bases of the locus
+     * line up with those {@code d} further on in most windows that line up well (at least three quarters
+     * of their bases equal); 0 when no window does. Copies of a block whose units' consensus length is off
+     * by a base or two line up that many bases per unit away from {@code d}.
+     */
+    static int shift(byte[] seq, int start, int end, int d) {
+        int slack = 2 + d / 50;
+        int span = end - start - d - slack - WINDOW;
+        if (span <= 0) {
+            return 0;
+        }
+        int windows = Math.min(MAX_WINDOWS, Math.max(1, span / WINDOW));
+        int[] votes = new int[2 * slack + 1];
+        for (int w = 0; w < windows; w++) {
+            int x = start + (int) ((long) span * w / windows);
+            int best = -1;
+            int at = 0;
+            for (int s = -slack; s <= slack; s++) {
+                int y = x + d + s;
+                if (y < start) {
+                    continue;
+                }
+                int same = same(seq, x, y);
+                if (same > best || same == best && Math.abs(s) < Math.abs(at)) {
+                    best = same;
+                    at = s;
+                }
+            }
+            if (4 * best >= 3 * WINDOW) {
+                votes[at + slack]++;
+            }
+        }
+        int top = slack;
+        for (int i = 0; i < votes.length; i++) {
+            if (votes[i] > votes[top]) {
+                top = i;
+            }
+        }
+        return votes[top] == 0 ? 0 : top - slack;
+    }
+
+    /** Bases of the window at {@code x} equal to those of the window at {@code y}. */
+    private static int same(byte[] seq, int x, int y) {
+        int same = 0;
+        for (int t = 0; t < WINDOW; t++) {
+            byte u = Bases.code(seq[x + t]);
+            if (u >= 0 && u <= 3 && u == Bases.code(seq[y + t])) {
+                same++;
+            }
+        }
+        return same;
+    }
+
+    /**
      * Fraction of bases equal to the base {@code d} further on, over windows of {@link #WINDOW} bases
      * spread evenly over {@code [start, end - d)} (at most {@link #MAX_WINDOWS}), each at its best offset
      * in {@code d} plus or minus 2 + d / 50.
@@ -108,14 +178,7 @@ final class NestedUnits {
                 if (y < start) {
                     continue;
                 }
-                int same = 0;
-                for (int t = 0; t < WINDOW; t++) {
-                    byte u = Bases.code(seq[x + t]);
-                    if (u >= 0 && u <= 3 && u == Bases.code(seq[y + t])) {
-                        same++;
-                    }
-                }
-                best = Math.max(best, same);
+                best = Math.max(best, same(seq, x, y));
             }
             total += best;
         }

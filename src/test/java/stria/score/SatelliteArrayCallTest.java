@@ -113,6 +113,19 @@ class SatelliteArrayCallTest {
     }
 
     @Test
+    void multipleIsTheRatioOfTwoCommensuratePeriods() {
+        assertThat(ArrayJoin.multiple(171, 171)).isEqualTo(1);
+        assertThat(ArrayJoin.multiple(172, 168)).isEqualTo(1);
+        assertThat(ArrayJoin.multiple(172, 344)).isEqualTo(2);
+        assertThat(ArrayJoin.multiple(344, 172)).isEqualTo(2);
+        assertThat(ArrayJoin.multiple(171, 1040)).isEqualTo(6);
+        // 260 is 1.5 units: no multiple; 3 x 171 = 513 is 33 bases (over 5 %) from 480
+        assertThat(ArrayJoin.multiple(171, 260)).isZero();
+        assertThat(ArrayJoin.multiple(171, 480)).isZero();
+        assertThat(ArrayJoin.multiple(50, 1000)).isZero();
+    }
+
+    @Test
     void anInvertedHalfStaysTwoLoci() {
         Random r = new Random(37);
         String unit = random(UNIT, r);
@@ -172,6 +185,49 @@ class SatelliteArrayCallTest {
         assertThat(unitLevel.get(0).length()).isGreaterThanOrEqualTo((int) (0.9 * arr.length()));
         assertThat(Math.abs(unitLevel.get(0).period() - UNIT)).isLessThanOrEqualTo(UNIT / 20);
         assertThat(unitLevel.get(0).subunits()).isZero();
+    }
+
+    @Test
+    void aBlockLongerThanItsUnitsSayIsFoundAtItsOwnLength() {
+        Random r = new Random(37);
+        String unit = random(UNIT, r);
+        // 10 units about 25 % apart, each followed by 1 or 2 inserted bases: the block is about 15 bases
+        // longer than ten times the units' consensus (more than the aligner's band); its copies differ by 1.5 %
+        StringBuilder b = new StringBuilder();
+        for (int u = 0; u < 10; u++) {
+            b.append(mutate(unit, 0.12, r)).append(random(1 + u % 2, r));
+        }
+        String block = b.toString();
+        String arr = array(block, 30, 0.015, r);
+        byte[] seq = LocusCallerTest.flanked(arr, 2000, 11);
+        List<Locus> p = pieces(LocusCallerTest.call(seq, settings(10_000)), 2000, 2000 + arr.length());
+        assertThat(p).hasSize(1);
+        Locus l = p.get(0);
+        assertThat(l.length()).isGreaterThanOrEqualTo((int) (0.9 * arr.length()));
+        assertThat(Math.abs(l.period() - block.length())).isLessThanOrEqualTo(3);
+        assertThat(l.subunits()).isEqualTo(10);
+        assertThat(Math.abs(l.subunitPeriod() - UNIT)).isLessThanOrEqualTo(UNIT / 20);
+    }
+
+    @Test
+    void shiftIsHowFarTheCopiesLieFromTheDistanceAsked() {
+        Random r = new Random(41);
+        String block = random(900, r);
+        StringBuilder sb = new StringBuilder();
+        for (int c = 0; c < 20; c++) {
+            // copies that differ by substitutions only lie exactly 900 apart
+            for (int i = 0; i < block.length(); i++) {
+                char ch = block.charAt(i);
+                sb.append(r.nextDouble() < 0.03 ? "ACGT".charAt(("ACGT".indexOf(ch) + 1 + r.nextInt(3)) % 4) : ch);
+            }
+        }
+        byte[] seq = sb.toString().getBytes();
+        assertThat(NestedUnits.shift(seq, 0, seq.length, 891)).isEqualTo(9);
+        assertThat(NestedUnits.shift(seq, 0, seq.length, 900)).isZero();
+        assertThat(NestedUnits.shift(seq, 0, seq.length, 909)).isEqualTo(-9);
+        // random bases line up nowhere
+        byte[] noise = random(20_000, r).getBytes();
+        assertThat(NestedUnits.shift(noise, 0, noise.length, 900)).isZero();
     }
 
     @Test
