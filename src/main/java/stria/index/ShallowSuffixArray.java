@@ -1,5 +1,7 @@
 package stria.index;
 
+import java.util.Arrays;
+
 /**
  * The suffixes of a stretch of small-alphabet codes ordered by their first {@code depth} letters only,
  * with the LCP array capped at {@code depth} and the inverse suffix array: the enhanced suffix array
@@ -90,7 +92,7 @@ public final class ShallowSuffixArray {
             counts = new int[digits * BUCKETS];
         }
         int[] count = counts;
-        java.util.Arrays.fill(count, 0, digits * BUCKETS, 0);
+        Arrays.fill(count, 0, digits * BUCKETS, 0);
         for (int i = 0; i < n; i++) {
             long k = src[i] >>> shift;
             for (int d = 0; d < digits; d++) {

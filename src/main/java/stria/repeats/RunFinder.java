@@ -10,8 +10,10 @@ import stria.io.Bases;
 /**
  * Finds every run (maximal repetition) of a stretch of DNA codes.
  *
- * <p>Per call: suffix array (SA-IS), LCP array and inverse suffix array (Phi), then the branching squares of
- * period at most maxPeriod from the LCP intervals ({@link BranchingSquares}). Every run of smallest
+ * <p>Per call: suffix array (SA-IS), LCP array and inverse suffix array (Phi), or, when maxPeriod is short,
+ * the same index sorted only maxPeriod + 1 letters deep ({@link ShallowSuffixArray}: the traversal never
+ * looks deeper), then the branching squares of period at most maxPeriod from the LCP intervals
+ * ({@link BranchingSquares}). Every run of smallest
  * period p ends with exactly one branching square of length p, and a branching square whose root is
  * primitive belongs to the run of that period ending where it ends; so each run is one primitive
  * branching square, rotated left as far as the period holds. Squares are sorted by end and then length;
@@ -25,7 +27,7 @@ import stria.io.Bases;
  *
  * <p>An instance keeps its arrays for the next call (one thread, many windows): suffix, LCP and inverse
  * suffix arrays and a packed context word per rank, about 20 bytes per letter of the largest stretch so
- * far, plus 16 bytes per branching square (roughly a quarter of the letters on DNA). Not thread safe.
+ * far (36 once the shallow index has been used: its keys), plus 16 bytes per branching square (roughly a quarter of the letters on DNA). Not thread safe.
  */
 public final class RunFinder {
     private final SuffixArray suffixArray = new SuffixArray();

@@ -91,15 +91,14 @@ public final class Background {
 
     /** G or C bases (high 32 bits) and A, C, G, T bases (low 32 bits) of {@code seq[from, to)}. */
     public static long tally(byte[] seq, int from, int to) {
-        // one load and one add a base: the two counts side by side in one long (a block is far shorter
-        // than 2^32 bases, so the low count never carries into the high one)
+        // one load and one add a base: the two counts side by side in one long (a range holds fewer than
+        // 2^31 bases, so the low count never carries into the high one)
         long sum = 0;
         for (int i = from; i < to; i++) {
             sum += COUNTS[seq[i] & 0xFF];
         }
         return sum;
     }
-
 
     /** The model at position {@code pos}. */
     public ScoringModel at(int pos) {

@@ -1,5 +1,8 @@
 package stria.score;
 
+import java.lang.invoke.MethodHandles;
+import java.lang.invoke.VarHandle;
+import java.nio.ByteOrder;
 import java.util.Arrays;
 import stria.io.Bases;
 import stria.repeats.RunList;
@@ -33,6 +36,10 @@ final class RecurrenceSeeds {
     static final int MIN_PERIOD = 7;
 
     private static final int MASK = (1 << (2 * K)) - 1;
+    /** Eight codes read as one long, in either byte order (only equal bytes are counted). */
+    private static final VarHandle LONGS = MethodHandles.byteArrayViewVarHandle(long[].class, ByteOrder.LITTLE_ENDIAN);
+    private static final long LOW7 = 0x7F7F7F7F7F7F7F7FL;
+
     private final int[] last = new int[1 << (2 * K)];
     private byte[] codes = new byte[0];
 
@@ -44,9 +51,12 @@ final class RecurrenceSeeds {
     /**
      * Appends to {@code out} one seed per verified position {@code i} in {@code [from, to)} (K-mers ending
      * past {@code to} are not looked at): interval {@code [i - d, i + K)}, period d. The verification
-     * window may read {@code seq} up to {@code length}.
+     * window may read {@code seq} up to {@code length}; {@code to} must not pass it.
      */
     void find(byte[] seq, int length, int from, int to, int maxPeriod, RunList out) {
+        if (to > length) {
+            throw new IllegalArgumentException("seeds up to " + to + " asked of " + length + " readable positions");
+        }
         if (maxPeriod < MIN_PERIOD) {
             return;
         }
@@ -151,10 +161,6 @@ final class RecurrenceSeeds {
         }
         return n;
     }
-
-    private static final java.lang.invoke.VarHandle LONGS = java.lang.invoke.MethodHandles.byteArrayViewVarHandle(
-            long[].class, java.nio.ByteOrder.LITTLE_ENDIAN);
-    private static final long LOW7 = 0x7F7F7F7F7F7F7F7FL;
 
     /** {@link #agrees} summed over the 8 codes from x, read as one long each. */
     private static int agrees8(byte[] code, int x, int d) {
