@@ -13,6 +13,11 @@ import stria.io.Bases;
 final class CandidateBuilder {
     /** Copies that vote on the provisional consensus: plenty to outvote errors, bounded work in satellites. */
     static final int VOTE_COPIES = 24;
+    /**
+     * A left extension longer than this (and than the copies that vote) that leaves its seed outside the
+     * candidate is not repeated by the seeds after it: the candidate is built from the seed on instead.
+     */
+    static final int LONG_LEFT = 10_000;
     /** Rounds of voting on the locus' own alignment; each must raise the score to be kept. */
     static final int VOTE_ROUNDS = 3;
 
@@ -99,7 +104,16 @@ final class CandidateBuilder {
         int a = s - leftLen;
         int phaseA = leftLen == 0 ? 0 : Math.floorMod(p - left.bestJ(), p);
         Consensus c = Consensus.of(tally.counts(), m0, phaseA);
-        return c == null ? null : settle(a, c.motif(), c.phase(), ce - a);
+        Candidate k = c == null ? null : settle(a, c.motif(), c.phase(), ce - a);
+        if (k != null && k.end < s + p && leftLen > Math.max(VOTE_COPIES * p, LONG_LEFT)) {
+            // the copies before the seed, more than ever vote, made a unit that stops short of the seed itself:
+            // a seed just past a change inside a satellite array, whose left extension ran back over the
+            // whole piece before. The candidate is built from the seed on, so that it holds its seed
+            // and the seeds after it are explained, instead of each running back over that piece again
+            // (which made the time grow with the square of the array's length)
+            return settle(s, m0, 0, ce - s);
+        }
+        return k;
     }
 
     private Candidate rejected(int start, int end) {
