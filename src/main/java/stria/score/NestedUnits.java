@@ -110,32 +110,9 @@ final class NestedUnits {
      * by a base or two line up that many bases per unit away from {@code d}.
      */
     static int shift(byte[] seq, int start, int end, int d) {
-        int slack = 2 + d / 50;
-        int span = end - start - d - slack - WINDOW;
-        if (span <= 0) {
-            return 0;
-        }
-        int windows = Math.min(MAX_WINDOWS, Math.max(1, span / WINDOW));
+        int slack = slack(d);
         int[] votes = new int[2 * slack + 1];
-        for (int w = 0; w < windows; w++) {
-            int x = start + (int) ((long) span * w / windows);
-            int best = -1;
-            int at = 0;
-            for (int s = -slack; s <= slack; s++) {
-                int y = x + d + s;
-                if (y < start) {
-                    continue;
-                }
-                int same = same(seq, x, y);
-                if (same > best || same == best && Math.abs(s) < Math.abs(at)) {
-                    best = same;
-                    at = s;
-                }
-            }
-            if (4 * best >= 3 * WINDOW) {
-                votes[at + slack]++;
-            }
-        }
+        windows(seq, start, end, d, votes);
         int top = slack;
         for (int i = 0; i < votes.length; i++) {
             if (votes[i] > votes[top]) {
@@ -143,6 +120,56 @@ final class NestedUnits {
             }
         }
         return votes[top] == 0 ? 0 : top - slack;
+    }
+
+    /** Offsets from d tried, either way: copies drift apart by their indels. */
+    private static int slack(int d) {
+        return 2 + d / 50;
+    }
+
+    /** Stretch over which the windows of distance d start; none when it is not positive. */
+    private static int span(int start, int end, int d) {
+        return end - start - d - slack(d) - WINDOW;
+    }
+
+    /** How many windows {@link #windows} looks at, 0 when the stretch is too short for one. */
+    private static int windowCount(int start, int end, int d) {
+        int span = span(start, end, d);
+        return span <= 0 ? 0 : Math.min(MAX_WINDOWS, Math.max(1, span / WINDOW));
+    }
+
+    /**
+     * The windows of {@link #agreement} and {@link #shift}, {@link #windowCount} of them, each at the
+     * offset from d where most of its bases equal those that far on (the offset nearest 0 on ties):
+     * returns the sum of those counts, and when {@code votes} is not null adds one vote at
+     * {@code votes[offset + slack]} for each window that lines up well (three quarters of its bases).
+     */
+    private static long windows(byte[] seq, int start, int end, int d, int[] votes) {
+        int slack = slack(d);
+        int span = span(start, end, d);
+        int windows = windowCount(start, end, d);
+        long total = 0;
+        for (int w = 0; w < windows; w++) {
+            int x = start + (int) ((long) span * w / windows);
+            int top = -1;
+            int at = 0;
+            for (int s = -slack; s <= slack; s++) {
+                int y = x + d + s;
+                if (y < start) {
+                    continue;
+                }
+                int same = same(seq, x, y);
+                if (same > top || same == top && Math.abs(s) < Math.abs(at)) {
+                    top = same;
+                    at = s;
+                }
+            }
+            total += Math.max(0, top);
+            if (votes != null && 4 * top >= 3 * WINDOW) {
+                votes[at + slack]++;
+            }
+        }
+        return total;
     }
 
     /** Bases of the window at {@code x} equal to those of the window at {@code y}. */
@@ -163,25 +190,7 @@ final class NestedUnits {
      * in {@code d} plus or minus 2 + d / 50.
      */
     static double agreement(byte[] seq, int start, int end, int d) {
-        int slack = 2 + d / 50;
-        int span = end - start - d - slack - WINDOW;
-        if (span <= 0) {
-            return 0;
-        }
-        int windows = Math.min(MAX_WINDOWS, Math.max(1, span / WINDOW));
-        long total = 0;
-        for (int w = 0; w < windows; w++) {
-            int x = start + (int) ((long) span * w / windows);
-            int best = 0;
-            for (int s = -slack; s <= slack; s++) {
-                int y = x + d + s;
-                if (y < start) {
-                    continue;
-                }
-                best = Math.max(best, same(seq, x, y));
-            }
-            total += best;
-        }
-        return total / (double) (windows * WINDOW);
+        int windows = windowCount(start, end, d);
+        return windows == 0 ? 0 : windows(seq, start, end, d, null) / (double) (windows * WINDOW);
     }
 }
