@@ -2,7 +2,6 @@ package stria.score;
 
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.Comparator;
 import java.util.List;
 
 /**
@@ -22,9 +21,14 @@ final class Competition {
         Candidate trim(Candidate k, int from, int to);
     }
 
-    private static final Comparator<Candidate> BY_POSITION =
-            Comparator.<Candidate>comparingInt(k -> k.start).thenComparingInt(k -> k.end)
-                    .thenComparingInt(k -> k.period);
+    /** Order by start, end, period. */
+    static int byPosition(Candidate a, Candidate b) {
+        int c = Integer.compare(a.start, b.start);
+        if (c == 0) {
+            c = Integer.compare(a.end, b.end);
+        }
+        return c != 0 ? c : Integer.compare(a.period, b.period);
+    }
 
     /**
      * Charge per motif base, in score units (tenths of a bit): about half a uniform match, the former one
@@ -43,13 +47,81 @@ final class Competition {
         return score - MOTIF_CHARGE * period;
     }
 
-    private static final Comparator<Candidate> BY_STRENGTH =
-            Comparator.<Candidate>comparingInt(k -> -strength(k.score, k.period)).thenComparingInt(k -> k.period)
-                    .thenComparingInt(k -> k.start).thenComparingInt(k -> k.end);
+    /** Order strongest first; ties: shorter period, then by position. */
+    static int byStrength(Candidate a, Candidate b) {
+        int c = Integer.compare(strength(b.score, b.period), strength(a.score, a.period));
+        if (c == 0) {
+            c = Integer.compare(a.period, b.period);
+        }
+        return c != 0 ? c : byPosition(a, b);
+    }
+
+    /**
+     * Sorts in place and stably, by {@link #byStrength} or else {@link #byPosition}: the order a library
+     * sort gives with the same comparison. Written out because the library's object sort is one method
+     * shared by every comparator in the process; each new comparator it meets makes the JIT compile it
+     * again (a fifth of all optimising-compiler time on a human chromosome).
+     */
+    static void sort(List<Candidate> list, boolean strongestFirst) {
+        Candidate[] base = list.toArray(new Candidate[0]);
+        int[] order = order(base, strongestFirst);
+        for (int i = 0; i < order.length; i++) {
+            list.set(i, base[order[i]]);
+        }
+    }
+
+    /** Indices of {@code base} in the stable order of {@link #sort}. */
+    private static int[] order(Candidate[] base, boolean strongestFirst) {
+        int n = base.length;
+        int[] idx = new int[n];
+        for (int i = 0; i < n; i++) {
+            idx[i] = i;
+        }
+        mergeSort(base, idx, new int[n], 0, n, strongestFirst);
+        return idx;
+    }
+
+    private static int compare(Candidate a, Candidate b, boolean strongestFirst) {
+        return strongestFirst ? byStrength(a, b) : byPosition(a, b);
+    }
+
+    private static void mergeSort(Candidate[] base, int[] a, int[] tmp, int from, int to, boolean s) {
+        if (to - from <= 8) {
+            for (int i = from + 1; i < to; i++) {
+                int x = a[i];
+                int j = i;
+                while (j > from && compare(base[a[j - 1]], base[x], s) > 0) {
+                    a[j] = a[j - 1];
+                    j--;
+                }
+                a[j] = x;
+            }
+            return;
+        }
+        int mid = (from + to) >>> 1;
+        mergeSort(base, a, tmp, from, mid, s);
+        mergeSort(base, a, tmp, mid, to, s);
+        if (compare(base[a[mid - 1]], base[a[mid]], s) <= 0) {
+            return;
+        }
+        System.arraycopy(a, from, tmp, from, to - from);
+        int i = from;
+        int j = mid;
+        int k = from;
+        while (i < mid && j < to) {
+            a[k++] = compare(base[tmp[j]], base[tmp[i]], s) < 0 ? tmp[j++] : tmp[i++];
+        }
+        while (i < mid) {
+            a[k++] = tmp[i++];
+        }
+        while (j < to) {
+            a[k++] = tmp[j++];
+        }
+    }
 
     /** The winners among {@code cands} (sorted in place by position), sorted by start, end, period. */
     static List<Candidate> resolve(List<Candidate> cands, Trimmer trimmer) {
-        cands.sort(BY_POSITION);
+        sort(cands, false);
         List<Candidate> won = new ArrayList<>();
         int i = 0;
         while (i < cands.size()) {
@@ -79,7 +151,7 @@ final class Competition {
                 taken.add(kept);
             }
         }
-        taken.sort(BY_POSITION);
+        sort(taken, false);
         return taken;
     }
 
@@ -91,14 +163,14 @@ final class Competition {
             tiled[t] = true;
             order.add(cluster.get(t));
         }
-        order.sort(BY_STRENGTH);
+        sort(order, true);
         List<Candidate> rest = new ArrayList<>();
         for (int t = 0; t < cluster.size(); t++) {
             if (!tiled[t]) {
                 rest.add(cluster.get(t));
             }
         }
-        rest.sort(BY_STRENGTH);
+        sort(rest, true);
         order.addAll(rest);
         return order;
     }
@@ -113,15 +185,26 @@ final class Competition {
         int n = cluster.size();
         int[] es = new int[n];
         int[] ee = new int[n];
-        Integer[] byEnd = new Integer[n];
         for (int i = 0; i < n; i++) {
             Candidate k = cluster.get(i);
             es[i] = k.start + edgeTolerance(k);
             ee[i] = k.end - edgeTolerance(k);
-            byEnd[i] = i;
         }
-        Arrays.sort(byEnd, (x, y) -> ee[x] != ee[y] ? Integer.compare(ee[x], ee[y])
-                : BY_STRENGTH.compare(cluster.get(x), cluster.get(y)));
+        // by core end, ties strongest first (then by index): a candidate's rank in a stable strength order
+        // breaks the ties, so one primitive sort of (end, rank) keys gives that order
+        int[] strong = order(cluster.toArray(new Candidate[0]), true);
+        long[] keys = new long[n];
+        for (int r = 0; r < n; r++) {
+            keys[strong[r]] = r;
+        }
+        for (int i = 0; i < n; i++) {
+            keys[i] |= (long) ee[i] << 32;
+        }
+        Arrays.sort(keys);
+        int[] byEnd = new int[n];
+        for (int r = 0; r < n; r++) {
+            byEnd[r] = strong[(int) keys[r]];
+        }
         long[] best = new long[n + 1];
         boolean[] use = new boolean[n + 1];
         int[] prev = new int[n + 1];
