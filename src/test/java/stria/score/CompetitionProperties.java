@@ -79,6 +79,40 @@ class CompetitionProperties {
         assertThat(w).isEqualTo(bruteForceBest(c));
     }
 
+    /**
+     * The competition's own sort gives the order of the library's stable sort with the same comparison,
+     * ties (equal candidates as distinct objects) kept in input order; sets small and large enough for both
+     * the insertion and the merge paths.
+     */
+    @Property(tries = 300)
+    void ownSortIsTheStableLibrarySort(@ForAll long seed, @ForAll @IntRange(min = 0, max = 70) int n,
+                                       @ForAll boolean strongestFirst) {
+        Random r = new Random(seed);
+        List<Candidate> c = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            // narrow ranges: many equal keys
+            c.add(candidate(r.nextInt(6), 4 + r.nextInt(4), 1 + r.nextInt(3), r.nextInt(5) * 9));
+        }
+        java.util.Comparator<Candidate> cmp = strongestFirst ? Competition::byStrength : Competition::byPosition;
+        // the orders as the documented chains of keys
+        java.util.Comparator<Candidate> chain = strongestFirst
+                ? java.util.Comparator.<Candidate>comparingInt(k -> -Competition.strength(k.score, k.period))
+                        .thenComparingInt(k -> k.period).thenComparingInt(k -> k.start).thenComparingInt(k -> k.end)
+                : java.util.Comparator.<Candidate>comparingInt(k -> k.start).thenComparingInt(k -> k.end)
+                        .thenComparingInt(k -> k.period);
+        for (Candidate a : c) {
+            for (Candidate b : c) {
+                assertThat(Integer.signum(cmp.compare(a, b))).isEqualTo(Integer.signum(chain.compare(a, b)));
+            }
+        }
+        List<Candidate> expected = new ArrayList<>(c);
+        expected.sort(cmp);
+        Competition.sort(c, strongestFirst);
+        for (int i = 0; i < n; i++) {
+            assertThat(c.get(i)).isSameAs(expected.get(i));
+        }
+    }
+
     /** Two neighbours that explain their parts beat one longer candidate covering both. */
     @Example
     void twoNeighboursBeatOneLongerUnit() {
