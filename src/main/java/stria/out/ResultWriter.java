@@ -24,7 +24,8 @@ public final class ResultWriter implements LocusSink {
     private final StringBuilder buf = new StringBuilder(BLOCK);
     /** Set by {@link #sealed}: the closing line's count and checksum, over the data lines only. */
     private ResultSeal seal;
-    private long pendingLines;
+    /** The buffer holds data lines (loci), which the seal counts; the header lines it does not. */
+    private boolean data;
 
     /** The text of a locus in one format; told each stretch's bases first, for formats that quote them. */
     public interface Lines {
@@ -86,14 +87,8 @@ public final class ResultWriter implements LocusSink {
 
     @Override
     public void locus(String contig, Locus l) {
-        int before = buf.length();
         lines.append(buf, contig, l);
-        // a format may skip a locus (the catalogue keeps short periods only) or write no line for it
-        for (int i = before; i < buf.length(); i++) {
-            if (buf.charAt(i) == '\n') {
-                pendingLines++;
-            }
-        }
+        data = true;
         if (buf.length() > BLOCK) {
             write();
         }
@@ -116,16 +111,30 @@ public final class ResultWriter implements LocusSink {
 
     private void write() {
         byte[] bytes = buf.toString().getBytes(StandardCharsets.UTF_8);
-        if (seal != null && pendingLines > 0) {
-            seal.data(bytes, 0, bytes.length, pendingLines);
+        if (seal != null && data) {
+            // a format may skip a locus (the catalogue keeps short periods only) or write no line for it
+            long n = lineEnds(bytes);
+            if (n > 0) {
+                seal.data(bytes, 0, bytes.length, n);
+            }
         }
-        pendingLines = 0;
+        data = false;
         try {
             out.write(bytes);
         } catch (IOException | UncheckedIOException | htsjdk.samtools.util.RuntimeIOException e) {
             throw failure(e);
         }
         buf.setLength(0);
+    }
+
+    private static long lineEnds(byte[] bytes) {
+        long n = 0;
+        for (byte b : bytes) {
+            if (b == '\n') {
+                n++;
+            }
+        }
+        return n;
     }
 
     private StriaException failure(Exception e) {
